@@ -1,0 +1,85 @@
+/**
+ * The one fetch wrapper of the client. Every API module calls `apiRequest`; components never call
+ * fetch. Errors arrive as `ApiRequestError` carrying the server's `{ code, message, issues }`.
+ */
+export interface ApiFieldIssue {
+  path: string
+  message: string
+}
+
+export class ApiRequestError extends Error {
+  constructor(
+    readonly status: number,
+    readonly code: string,
+    message: string,
+    readonly issues: ApiFieldIssue[] = [],
+  ) {
+    super(message)
+    this.name = 'ApiRequestError'
+  }
+}
+
+type UnauthorizedListener = () => void
+const unauthorizedListeners = new Set<UnauthorizedListener>()
+
+/** Lets the session layer send the user to sign-in when any request answers 401. */
+export function onUnauthorized(listener: UnauthorizedListener): () => void {
+  unauthorizedListeners.add(listener)
+  return () => unauthorizedListeners.delete(listener)
+}
+
+export interface ApiRequestOptions {
+  method?: 'GET' | 'POST' | 'PUT' | 'PATCH' | 'DELETE'
+  body?: unknown
+  query?: Record<string, string | number | boolean | undefined>
+  signal?: AbortSignal
+  /** Skip the global 401 handling (the sign-in form handles its own 401). */
+  quietUnauthorized?: boolean
+}
+
+export async function apiRequest<T>(path: string, options: ApiRequestOptions = {}): Promise<T> {
+  const url = new URL(`/api${path}`, window.location.origin)
+  for (const [name, value] of Object.entries(options.query ?? {})) {
+    if (value !== undefined) url.searchParams.set(name, String(value))
+  }
+  const isForm = options.body instanceof FormData
+  let response: Response
+  try {
+    response = await fetch(url, {
+      method: options.method ?? 'GET',
+      credentials: 'same-origin',
+      headers: options.body === undefined || isForm ? {} : { 'Content-Type': 'application/json' },
+      body:
+        options.body === undefined
+          ? undefined
+          : isForm
+            ? (options.body as FormData)
+            : JSON.stringify(options.body),
+      signal: options.signal,
+    })
+  } catch (error) {
+    if ((error as Error).name === 'AbortError') throw error
+    throw new ApiRequestError(
+      0,
+      'offline',
+      'The server could not be reached. Check the connection and try again.',
+    )
+  }
+  if (response.status === 204) return undefined as T
+  const payload: unknown = await response.json().catch(() => undefined)
+  if (!response.ok) {
+    const error = (
+      payload as { error?: { code?: string; message?: string; issues?: ApiFieldIssue[] } }
+    )?.error
+    if (response.status === 401 && !options.quietUnauthorized) {
+      for (const listener of unauthorizedListeners) listener()
+    }
+    throw new ApiRequestError(
+      response.status,
+      error?.code ?? 'http-' + response.status,
+      error?.message ?? `The server answered ${response.status}.`,
+      error?.issues ?? [],
+    )
+  }
+  return payload as T
+}

@@ -1,0 +1,56 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest'
+import { openBrowser, seriousAxeViolations, type BrowserSession } from '../helpers/browser'
+import { startServer, type RunningServer } from '../helpers/e2e-server'
+
+let server: RunningServer
+let browser: BrowserSession
+
+beforeAll(async () => {
+  server = await startServer()
+  browser = await openBrowser()
+})
+afterAll(async () => {
+  await browser?.close()
+  await server?.stop()
+})
+
+describe('the app shell in Chromium', () => {
+  it('reports migrations applied at /api/health', async () => {
+    const response = await browser.page.request.get(`${server.url}/api/health`)
+    const health = await response.json()
+    expect(health.ok).toBe(true)
+    expect(health.migrations.pending).toBe(0)
+    expect(health.migrations.applied).toBeGreaterThanOrEqual(1)
+  })
+
+  it('loads the client from a deep link and navigates between areas', async () => {
+    const { page } = browser
+    await page.goto(`${server.url}/about`)
+    await page.getByRole('heading', { name: 'Method and cautions' }).waitFor()
+    await page.goto(`${server.url}/plans/123`)
+    await page.getByRole('navigation', { name: 'Main' }).waitFor()
+    await page.getByRole('link', { name: 'Parts' }).click()
+    await page.waitForURL(`${server.url}/parts`)
+    expect(await page.title()).toContain('Loudhour')
+  })
+
+  it('uses the bundled IBM Plex Sans on the body', async () => {
+    const { page } = browser
+    await page.goto(`${server.url}/about`)
+    await page.getByRole('heading', { name: 'Method and cautions' }).waitFor()
+    const family = await page.evaluate(() => getComputedStyle(document.body).fontFamily)
+    expect(family).toContain('IBM Plex Sans')
+    await page.evaluate(() => document.fonts.ready)
+    const loaded = await page.evaluate(() => document.fonts.check('16px "IBM Plex Sans"'))
+    expect(loaded).toBe(true)
+  })
+
+  it('has no console errors and no serious accessibility violations', async () => {
+    const { page } = browser
+    await page.goto(`${server.url}/about`)
+    await page.getByRole('heading', { name: 'Method and cautions' }).waitFor()
+    expect(await seriousAxeViolations(page)).toEqual([])
+    await browser.screenshot('app-shell-about')
+    expect(browser.consoleErrors).toEqual([])
+  })
+})

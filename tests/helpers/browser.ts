@@ -1,0 +1,112 @@
+import { mkdirSync, mkdtempSync, readFileSync, rmSync } from 'node:fs'
+import { createRequire } from 'node:module'
+import { tmpdir } from 'node:os'
+import { join } from 'node:path'
+import { chromium, type BrowserContext, type Page } from 'playwright-core'
+
+// Debian's Chromium; a browser download is impossible here (and never wanted).
+const chromiumPath = process.env.LOUDHOUR_CHROMIUM ?? '/usr/bin/chromium'
+const chromiumArgs = [
+  '--headless=new',
+  '--no-sandbox',
+  '--disable-gpu',
+  '--disable-quic',
+  '--no-first-run',
+  '--disable-background-networking',
+  '--disable-component-update',
+  '--disable-sync',
+  '--disable-dev-shm-usage',
+]
+
+/** Screenshots go outside the tree, so nothing generated is ever committed. */
+export const screenshotDir = join(tmpdir(), 'loudhour-screenshots')
+
+export interface BrowserSession {
+  context: BrowserContext
+  page: Page
+  /** Console errors and uncaught exceptions seen so far, across every page of the context. */
+  consoleErrors: string[]
+  screenshot: (name: string) => Promise<string>
+  close: () => Promise<void>
+}
+
+export async function openBrowser(
+  options: { viewport?: { width: number; height: number } } = {},
+): Promise<BrowserSession> {
+  const profileDir = mkdtempSync(join(tmpdir(), 'loudhour-chromium-'))
+  const context = await chromium.launchPersistentContext(profileDir, {
+    executablePath: chromiumPath,
+    args: chromiumArgs,
+    headless: true,
+    viewport: options.viewport ?? { width: 1280, height: 900 },
+    acceptDownloads: true,
+  })
+  const consoleErrors: string[] = []
+  const watch = (page: Page) => {
+    page.on('console', (message) => {
+      if (message.type() === 'error') consoleErrors.push(message.text())
+    })
+    page.on('pageerror', (error) => consoleErrors.push(error.message))
+  }
+  context.pages().forEach(watch)
+  context.on('page', watch)
+  const page = context.pages()[0] ?? (await context.newPage())
+  mkdirSync(screenshotDir, { recursive: true })
+  return {
+    context,
+    page,
+    consoleErrors,
+    screenshot: async (name) => {
+      const file = join(screenshotDir, `${name}.png`)
+      await page.screenshot({ path: file, fullPage: true })
+      return file
+    },
+    close: async () => {
+      await context.close()
+      rmSync(profileDir, { recursive: true, force: true })
+    },
+  }
+}
+
+export interface AxeViolation {
+  id: string
+  impact: string | null
+  help: string
+  nodes: number
+}
+
+const axeSource = readFileSync(
+  createRequire(import.meta.url).resolve('axe-core/axe.min.js'),
+  'utf8',
+)
+
+/**
+ * Runs axe-core in the page and returns the serious and critical violations. The script is
+ * evaluated rather than injected as a <script> tag, which the app's CSP rightly refuses.
+ */
+export async function seriousAxeViolations(page: Page): Promise<AxeViolation[]> {
+  await page.evaluate(axeSource)
+  const violations = await page.evaluate(async () => {
+    const axe = (
+      window as unknown as {
+        axe: {
+          run: (
+            context: Document,
+          ) => Promise<{
+            violations: { id: string; impact: string | null; help: string; nodes: unknown[] }[]
+          }>
+        }
+      }
+    ).axe
+    const result = await axe.run(document)
+    return result.violations.map((violation) => ({
+      id: violation.id,
+      impact: violation.impact,
+      help: violation.help,
+      nodes: violation.nodes.length,
+    }))
+  })
+  return violations.filter(
+    (violation) => violation.impact === 'serious' || violation.impact === 'critical',
+  )
+}
