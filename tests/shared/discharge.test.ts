@@ -1,0 +1,91 @@
+import { describe, expect, it } from 'vitest'
+import {
+  analyseDischarge,
+  maxStoredPoints,
+  type DischargeSample,
+} from '../../shared/discharge/analyse'
+
+function constantCurrentLog(options: {
+  currentA: number
+  hours: number
+  startV: number
+  endV: number
+  stepS: number
+}) {
+  const samples: DischargeSample[] = []
+  const totalS = options.hours * 3600
+  for (let timeS = 0; timeS <= totalS; timeS += options.stepS) {
+    const fraction = timeS / totalS
+    samples.push({
+      timeS,
+      voltageV: options.startV + (options.endV - options.startV) * fraction,
+      currentA: options.currentA,
+    })
+  }
+  return samples
+}
+
+describe('delivered charge and energy', () => {
+  it('gives Ah = I × t exactly for a constant current', () => {
+    // Source: definition of the ampere-hour (1 Ah = 3600 C); the trapezoid rule is exact for a constant.
+    const log = constantCurrentLog({ currentA: 2, hours: 2.5, startV: 12.8, endV: 12.0, stepS: 30 })
+    const result = analyseDischarge(log, { cutoffV: 10.5, ratedAh: 7 })
+    expect(result.deliveredAh).toBeCloseTo(5, 10)
+    expect(result.reachedCutoff).toBe(false)
+    expect(result.healthPct).toBeCloseTo((5 / 7) * 100, 8)
+  })
+
+  it('gives Wh = I × mean V × t for a linear voltage fall', () => {
+    // Source: trapezoid rule, exact for a linear integrand (any numerical analysis text).
+    const log = constantCurrentLog({ currentA: 1, hours: 1, startV: 4.2, endV: 3.4, stepS: 10 })
+    const result = analyseDischarge(log, { cutoffV: 3.0, ratedAh: 1 })
+    expect(result.deliveredWh).toBeCloseTo(1 * 3.8 * 1, 8)
+  })
+
+  it('stops counting at the cutoff crossing, interpolated between samples', () => {
+    // 2 A for 1 h from 13 V to 11 V; cutoff 12 V is crossed halfway: 1 Ah delivered.
+    // Source: linear interpolation of the crossing time; Ah = I × t.
+    const log = constantCurrentLog({ currentA: 2, hours: 1, startV: 13, endV: 11, stepS: 60 })
+    const result = analyseDischarge(log, { cutoffV: 12, ratedAh: 2 })
+    expect(result.reachedCutoff).toBe(true)
+    expect(result.deliveredAh).toBeCloseTo(1, 6)
+    expect(result.durationS).toBeCloseTo(1800, 6)
+    expect(result.endVoltageV).toBe(12)
+    expect(result.healthPct).toBeCloseTo(50, 6)
+  })
+})
+
+describe('internal resistance from load steps', () => {
+  it('recovers R from ΔV/ΔI when the current steps between two levels', () => {
+    // Thevenin model V = OCV − I·R (any circuit theory text): a 0.05 Ω pack stepping 1 A ↔ 5 A.
+    const resistanceOhm = 0.05
+    const samples: DischargeSample[] = []
+    for (let timeS = 0; timeS < 600; timeS += 1) {
+      const currentA = Math.floor(timeS / 60) % 2 === 0 ? 1 : 5
+      const ocvV = 12.6 - timeS * 0.0005
+      samples.push({ timeS, voltageV: ocvV - currentA * resistanceOhm, currentA })
+    }
+    const result = analyseDischarge(samples, { cutoffV: 10, ratedAh: 10 })
+    expect(result.resistanceOhm).toBeDefined()
+    expect(result.resistanceOhm!).toBeCloseTo(resistanceOhm, 3)
+    expect(result.resistanceSteps).toBe(9)
+  })
+
+  it('gives no resistance for a log without load steps', () => {
+    const log = constantCurrentLog({ currentA: 3, hours: 1, startV: 12.7, endV: 12.1, stepS: 30 })
+    const result = analyseDischarge(log, { cutoffV: 10.5, ratedAh: 7 })
+    expect(result.resistanceOhm).toBeUndefined()
+    expect(result.resistanceSteps).toBe(0)
+  })
+})
+
+describe('stored points', () => {
+  it('keeps at most the stored number of points, first and last included', () => {
+    const log = constantCurrentLog({ currentA: 1, hours: 3, startV: 4.1, endV: 3.5, stepS: 1 })
+    const result = analyseDischarge(log, { cutoffV: 3, ratedAh: 3 })
+    expect(result.points.length).toBe(maxStoredPoints)
+    expect(result.points[0]!.minute).toBe(0)
+    expect(result.points[result.points.length - 1]!.minute).toBeCloseTo(180, 6)
+    expect(result.points[result.points.length - 1]!.deliveredAh).toBeCloseTo(3, 6)
+  })
+})
