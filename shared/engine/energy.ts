@@ -1,0 +1,14 @@
+import type { AirlineClass } from '../schemas/estimate'
+
+/** Nominal energy = nominal V × rated Ah, the figure airline rules use (engine.md §1). */
+export function nominalWh(nominalV: number, ratedCapacityAh: number): number {
+  return nominalV * ratedCapacityAh
+}
+
+/** IATA Dangerous Goods Regulations (lithium batteries): ≤ 100 Wh carry-on, over 100 and up to
+ *  160 Wh with the airline's approval, over 160 Wh not in passenger baggage. */
+export function airlineClass(packNominalWh: number): AirlineClass {
+  if (packNominalWh <= 100) return 'up-to-100wh'
+  if (packNominalWh <= 160) return '100-to-160wh'
+  return 'over-160wh'
+}

@@ -1,0 +1,383 @@
+// Warnings: stable kebab-case codes (screens and saved plans key on them), and messages that say
+// what to change. Cautions defer to local codes and licensed practice where the work can hurt.
+import type { ConverterResult, EstimateWarning, Severity, StopReason } from '../schemas/estimate'
+import type { Chemistry } from './chemistry'
+import { CHEMISTRY_DATA } from './chemistry'
+import { LINEAR_HEAT_LIMIT_W } from './converters'
+import { IMPEDANCE_DIP_FACTOR } from './speakers'
+import { CHILDREN_CAUTION_DB, NIOSH_REL_DBA, WHO_VENUE_LAEQ_DB } from './sound'
+
+export const LEAD_DROP_LIMIT_PCT = 3 // common practice: keep DC supply leads under 3 % drop
+export const LEAD_ACID_DEEP_DISCHARGE_SOC = 0.5 // common practice: below 50 % shortens AGM life
+export const COLD_PACK_C = 5 // ours: where the cold costs enough capacity to mention
+export const HOT_PACK_C = 45 // common practice: lithium makers' upper discharge range starts near here
+
+export const WARNING_CATALOGUE = {
+  'load-below-minimum': {
+    severity: 'danger',
+    meaning: "The load per channel is below the amplifier's minimum load.",
+  },
+  'impedance-dips': {
+    severity: 'info',
+    meaning:
+      "The load is within 25 % of the amplifier's minimum; real impedance dips below nominal.",
+  },
+  'supply-over-max': {
+    severity: 'danger',
+    meaning: "A full pack is above the amplifier's maximum supply voltage.",
+  },
+  'supply-range-unknown': {
+    severity: 'info',
+    meaning: "The amplifier's supply range or lock-out is not given, so they are not checked.",
+  },
+  'lockout-above-cutoff': {
+    severity: 'caution',
+    meaning: 'The amplifier mutes before the pack reaches its cutoff: energy is left unused.',
+  },
+  'cannot-deliver': {
+    severity: 'danger',
+    meaning: 'The pack cannot deliver the power asked of it through its resistance and the lead.',
+  },
+  'current-over-rating': {
+    severity: 'danger',
+    meaning: "The average current is above the pack's maximum continuous discharge.",
+  },
+  'peak-current-over-rating': {
+    severity: 'caution',
+    meaning: "The current on programme peaks is above the pack's maximum continuous discharge.",
+  },
+  'pack-rating-unknown': {
+    severity: 'info',
+    meaning: "The pack's maximum discharge current is not given, so currents are not checked.",
+  },
+  'lead-drop-high': {
+    severity: 'caution',
+    meaning: 'The lead loses more than 3 % of the pack voltage at the average draw.',
+  },
+  'dropout-risk': {
+    severity: 'danger',
+    meaning: 'On bass peaks late in the run the supply falls below the lock-out: music cuts out.',
+  },
+  'peaks-clip': {
+    severity: 'caution',
+    meaning: 'As the pack sags the programme peaks reach clipping.',
+  },
+  'linear-regulator-hot': {
+    severity: 'caution',
+    meaning: 'A linear regulator sheds more than about 1 W of heat.',
+  },
+  'accessory-over-max': {
+    severity: 'danger',
+    meaning: 'A directly fed accessory sees more than its maximum input voltage.',
+  },
+  'accessory-under-min': {
+    severity: 'caution',
+    meaning: 'A directly fed accessory sees less than its minimum input voltage late in the run.',
+  },
+  'converter-mismatch': {
+    severity: 'caution',
+    meaning: "The chosen converter does not suit the pack's voltage window.",
+  },
+  'hearing-caution': {
+    severity: 'caution',
+    meaning: 'The estimated level at the listener is above 85 dBA (NIOSH REL).',
+  },
+  'hearing-over-venue-limit': {
+    severity: 'danger',
+    meaning: 'The estimated level is above the WHO venue figure of 100 dB LAeq over 15 minutes.',
+  },
+  'children-present': {
+    severity: 'caution',
+    meaning:
+      'Children are present and the level is above the stricter caution for them (80 dB, from memory).',
+  },
+  'sound-level-estimate': {
+    severity: 'info',
+    meaning: 'Sound levels are free-field estimates.',
+  },
+  'lead-acid-deep-discharge': {
+    severity: 'caution',
+    meaning: 'A lead-acid pack is drawn below 50 % state of charge.',
+  },
+  'cold-pack': { severity: 'caution', meaning: 'The pack is below 5 °C: less capacity, more sag.' },
+  'hot-pack': { severity: 'caution', meaning: 'The pack is above 45 °C.' },
+  'schedule-short': {
+    severity: 'danger',
+    meaning: 'The packs on hand do not last the schedule.',
+  },
+  'runtime-limit': {
+    severity: 'info',
+    meaning: 'The run without a schedule reached the 7-day limit of simulated time.',
+  },
+  'rated-power-above-ideal': {
+    severity: 'info',
+    meaning:
+      "The amplifier's rating is above what its supply can swing; output resistance taken as 0.",
+  },
+  'efficiency-not-used': {
+    severity: 'info',
+    meaning:
+      'Class AB efficiency follows from the supply and the swing; the figure given is not used.',
+  },
+  'lithium-safety': { severity: 'info', meaning: 'Usual cautions for lithium packs.' },
+  'lead-acid-safety': { severity: 'info', meaning: 'Usual cautions for lead-acid batteries.' },
+  'airline-approval-needed': {
+    severity: 'info',
+    meaning: "Lithium pack over 100 Wh and up to 160 Wh: air travel needs the airline's approval.",
+  },
+  'airline-not-allowed': {
+    severity: 'info',
+    meaning: 'Lithium pack over 160 Wh: not allowed in passenger baggage.',
+  },
+} as const satisfies Record<string, { severity: Severity; meaning: string }>
+
+export type WarningCode = keyof typeof WARNING_CATALOGUE
+
+export function warning(code: WarningCode, message: string): EstimateWarning {
+  return { code, message, severity: WARNING_CATALOGUE[code].severity }
+}
+
+/** Everything the warnings look at, already computed by the estimate. */
+export interface WarningFacts {
+  chemistry: Chemistry
+  temperatureC: number
+  capacityFactor: number
+  loadOhm: number
+  minLoadOhm: number
+  fullPackV: number
+  cutoffSupplyV: number
+  supplyMaxV: number | null
+  lockoutV: number | null
+  stopReason: StopReason
+  anyPackCannotDeliver: boolean
+  lowestSocPct: number
+  maxAverageCurrentA: number
+  peakCurrentA: number
+  maxDischargeA: number | null
+  leadDropPct: { average: number; peak: number }
+  hasLeads: boolean
+  dropoutRisk: boolean
+  minPeakSupplyV: number
+  clipsFromMinute: number | null
+  converters: readonly ConverterResult[]
+  averageSplDb: number | null
+  childrenPresent: boolean
+  permittedMinutes: number | null
+  schedule: { lasts: boolean; stoppedAtMinute: number | null; totalMinutes: number } | null
+  outputResistanceClamped: boolean
+  abEfficiencyGiven: boolean
+  nominalWh: number
+  airlineClass: string
+}
+
+const fixed = (value: number, digits = 1) => value.toFixed(digits)
+
+function stopInWords(reason: StopReason): string {
+  switch (reason) {
+    case 'pack-cutoff':
+      return 'the last pack reaches its cutoff voltage'
+    case 'cannot-deliver':
+      return 'the pack cannot deliver the power'
+    case 'amp-lockout':
+      return 'the amplifier mutes at its lock-out voltage'
+    case 'pack-empty':
+      return 'the last pack is empty'
+    case 'schedule-end':
+      return 'the schedule ends'
+    case 'time-limit':
+      return 'the 7-day limit is reached'
+  }
+}
+
+export function collectWarnings(facts: WarningFacts): EstimateWarning[] {
+  const warnings: EstimateWarning[] = []
+  const add = (code: WarningCode, message: string) => warnings.push(warning(code, message))
+  const chemistry = CHEMISTRY_DATA[facts.chemistry]
+
+  if (facts.schedule && !facts.schedule.lasts && facts.schedule.stoppedAtMinute !== null) {
+    add(
+      'schedule-short',
+      `The rig stops at minute ${Math.round(facts.schedule.stoppedAtMinute)} of ${Math.round(facts.schedule.totalMinutes)} because ${stopInWords(facts.stopReason)}: bring more charged packs, lower the level, or use a larger pack.`,
+    )
+  }
+  if (facts.anyPackCannotDeliver || facts.stopReason === 'cannot-deliver') {
+    add(
+      'cannot-deliver',
+      'The pack cannot deliver the power asked of it through its own resistance and the lead: lower the level, use a pack with more cells in parallel or a higher voltage, or a thicker, shorter lead.',
+    )
+  }
+  if (facts.loadOhm < facts.minLoadOhm) {
+    add(
+      'load-below-minimum',
+      `The load is ${fixed(facts.loadOhm, 2)} ohm per channel, below the amplifier's minimum of ${fixed(facts.minLoadOhm, 2)} ohm: wire fewer drivers in parallel or more banks in series.`,
+    )
+  } else if (facts.loadOhm * IMPEDANCE_DIP_FACTOR < facts.minLoadOhm) {
+    add(
+      'impedance-dips',
+      `The load is ${fixed(facts.loadOhm, 2)} ohm per channel, close to the amplifier's minimum of ${fixed(facts.minLoadOhm, 2)} ohm; real impedance dips below nominal, so watch the amplifier's temperature or raise the load.`,
+    )
+  }
+  if (facts.supplyMaxV !== null && facts.fullPackV > facts.supplyMaxV) {
+    add(
+      'supply-over-max',
+      `A full pack gives ${fixed(facts.fullPackV)} V, above the amplifier's maximum supply of ${fixed(facts.supplyMaxV)} V: use a pack with fewer cells in series or an amplifier rated for it.`,
+    )
+  }
+  if (facts.supplyMaxV === null || facts.lockoutV === null) {
+    add(
+      'supply-range-unknown',
+      "Enter the amplifier's supply range and lock-out voltage from its datasheet so the pack voltage can be checked against them.",
+    )
+  }
+  if (facts.lockoutV !== null && facts.lockoutV > facts.cutoffSupplyV) {
+    const left =
+      facts.stopReason === 'amp-lockout'
+        ? ` About ${Math.round(facts.lowestSocPct)} % of the pack is left when it mutes.`
+        : ''
+    add(
+      'lockout-above-cutoff',
+      `The amplifier mutes at ${fixed(facts.lockoutV)} V, above the ${fixed(facts.cutoffSupplyV)} V it would see at the pack's cutoff, so energy is stranded.${left} Use a pack with more cells in series, a thicker lead, or an amplifier with a lower lock-out.`,
+    )
+  }
+  if (facts.maxDischargeA === null) {
+    add(
+      'pack-rating-unknown',
+      "Enter the pack's maximum continuous discharge current so the draw can be checked against it.",
+    )
+  } else if (facts.maxAverageCurrentA > facts.maxDischargeA) {
+    add(
+      'current-over-rating',
+      `The rig draws up to ${fixed(facts.maxAverageCurrentA)} A on average, above the pack's ${fixed(facts.maxDischargeA)} A rating: lower the level, or use a pack rated for more current (more cells in parallel). Overdriven packs can overheat.`,
+    )
+  } else if (facts.peakCurrentA > facts.maxDischargeA) {
+    add(
+      'peak-current-over-rating',
+      `On programme peaks the rig draws ${fixed(facts.peakCurrentA)} A, above the pack's ${fixed(facts.maxDischargeA)} A rating: lower the level or use a pack rated for more current; its protection may cut out on bass.`,
+    )
+  }
+  if (facts.hasLeads && facts.leadDropPct.average > LEAD_DROP_LIMIT_PCT) {
+    add(
+      'lead-drop-high',
+      `The lead loses ${fixed(facts.leadDropPct.average)} % of the pack voltage at the average draw (${fixed(facts.leadDropPct.peak)} % on peaks): use a thicker or shorter lead.`,
+    )
+  }
+  if (facts.dropoutRisk) {
+    add(
+      'dropout-risk',
+      `On bass peaks late in the run the amplifier's supply falls to ${fixed(facts.minPeakSupplyV)} V${facts.lockoutV !== null ? `, below its ${fixed(facts.lockoutV)} V lock-out` : ''}, so music may cut out: lower the level, use a thicker, shorter lead, or a pack with more cells in parallel.`,
+    )
+  }
+  if (facts.clipsFromMinute !== null) {
+    add(
+      'peaks-clip',
+      `From about minute ${Math.round(facts.clipsFromMinute)} the pack has sagged so far that the programme's peaks clip: lower the level a little or swap packs earlier.`,
+    )
+  }
+  for (const converter of facts.converters) {
+    if (converter.linearHeatW > LINEAR_HEAT_LIMIT_W) {
+      add(
+        'linear-regulator-hot',
+        `The linear regulator for "${converter.label}" sheds ${fixed(converter.linearHeatW)} W of heat at full charge: fit a heatsink, or use a step-down (buck) converter instead.`,
+      )
+    }
+    if (
+      converter.feed === 'direct' &&
+      (converter.verdict === 'over-max' || converter.verdict === 'step-down')
+    ) {
+      add('accessory-over-max', `"${converter.label}": ${converter.advice}`)
+    } else if (converter.feed === 'direct' && !converter.fits) {
+      add('accessory-under-min', `"${converter.label}": ${converter.advice}`)
+    } else if (converter.feed !== 'direct' && !converter.fits) {
+      add(
+        'converter-mismatch',
+        `"${converter.label}": a ${converter.feed} converter does not suit a pack window of ${fixed(converter.windowMinV)}–${fixed(converter.windowMaxV)} V for a ${fixed(converter.suppliedV)} V output. ${converter.advice}`,
+      )
+    }
+  }
+  if (facts.averageSplDb !== null) {
+    const permitted =
+      facts.permittedMinutes === null
+        ? ''
+        : ` (NIOSH permits about ${Math.round(facts.permittedMinutes)} minutes a day)`
+    if (facts.averageSplDb > WHO_VENUE_LAEQ_DB) {
+      add(
+        'hearing-over-venue-limit',
+        `The estimated level at the listener is ${Math.round(facts.averageSplDb)} dB, above the WHO venue figure of 100 dB LAeq over 15 minutes${permitted}: lower the level or move the audience back. Follow local rules.`,
+      )
+    } else if (facts.averageSplDb > NIOSH_REL_DBA) {
+      add(
+        'hearing-caution',
+        `The estimated level at the listener is ${Math.round(facts.averageSplDb)} dB, above 85 dBA${permitted}: lower the level, keep people back from the speakers, or offer hearing protection. Follow local rules.`,
+      )
+    }
+    if (facts.childrenPresent && facts.averageSplDb > CHILDREN_CAUTION_DB) {
+      add(
+        'children-present',
+        `Children are present: the estimated ${Math.round(facts.averageSplDb)} dB is above the stricter ${CHILDREN_CAUTION_DB} dB aimed at for them. Lower the level, keep children well back from the speakers, and follow local rules.`,
+      )
+    }
+    add(
+      'sound-level-estimate',
+      'Sound levels are free-field estimates for a steady programme: measure with a sound level meter on the day.',
+    )
+  }
+  if (facts.chemistry === 'lead-acid' && facts.lowestSocPct < LEAD_ACID_DEEP_DISCHARGE_SOC * 100) {
+    add(
+      'lead-acid-deep-discharge',
+      `The lead-acid pack is drawn down to ${Math.round(facts.lowestSocPct)} %: bring another battery or a larger one to stay above 50 %, which keeps it healthy for longer.`,
+    )
+  }
+  if (facts.temperatureC < COLD_PACK_C) {
+    const charge = chemistry.isLithium ? ' Never charge lithium packs below 0 °C.' : ''
+    add(
+      'cold-pack',
+      `At ${fixed(facts.temperatureC, 0)} °C the pack gives about ${Math.round(facts.capacityFactor * 100)} % of its capacity and sags more: keep packs warm until use, or bring more.${charge}`,
+    )
+  } else if (facts.temperatureC > HOT_PACK_C) {
+    add(
+      'hot-pack',
+      `At ${fixed(facts.temperatureC, 0)} °C packs age fast and lithium packs get nearer their limits: keep them in the shade and out of closed cars.`,
+    )
+  }
+  if (facts.stopReason === 'time-limit') {
+    add(
+      'runtime-limit',
+      'The rig runs for more than 7 days on these packs; the run stops there. Add a schedule for a real plan.',
+    )
+  }
+  if (facts.outputResistanceClamped) {
+    add(
+      'rated-power-above-ideal',
+      "The amplifier's rated power is more than its rated supply can swing into the rated load: check the datasheet figures (it may be a 10 % THD rating; set ratedThdPct).",
+    )
+  }
+  if (facts.abEfficiencyGiven) {
+    add(
+      'efficiency-not-used',
+      'Class AB efficiency follows from the supply voltage and the output swing, so the efficiency entered is not used.',
+    )
+  }
+  if (chemistry.isLithium) {
+    add(
+      'lithium-safety',
+      "Lithium packs are a fire risk when crushed, shorted or charged in the cold: fuse the lead close to the pack, stay within its discharge rating, and follow the maker's and local rules.",
+    )
+    if (facts.airlineClass === '100-to-160wh') {
+      add(
+        'airline-approval-needed',
+        `Each pack holds ${Math.round(facts.nominalWh)} Wh: ask the airline for approval before flying with it, and carry it in the cabin with its terminals covered (IATA: over 100 Wh, up to 160 Wh).`,
+      )
+    } else if (facts.airlineClass === 'over-160wh') {
+      add(
+        'airline-not-allowed',
+        `Each pack holds ${Math.round(facts.nominalWh)} Wh, over 160 Wh: it may not travel in passenger baggage (IATA); ship it as cargo or use smaller packs.`,
+      )
+    }
+  } else if (facts.chemistry === 'lead-acid') {
+    add(
+      'lead-acid-safety',
+      'Lead-acid batteries vent gas when charged: charge them in a ventilated place, fuse the lead close to the battery, and follow local rules.',
+    )
+  }
+  return warnings
+}

@@ -1,0 +1,514 @@
+// The estimate request and result (engine.md §9). Field names are the contract: extend, rename none.
+// The schema only validates; defaults are applied by the engine and listed in `result.assumed`,
+// so screens can show what was assumed.
+import { z } from 'zod'
+import { CHEMISTRIES, CHEMISTRY_DATA } from '../engine/chemistry'
+
+interface Bounds {
+  min: number
+  max: number
+  /** The minimum itself is not allowed (a zero capacity, impedance or efficiency is not physical). */
+  aboveMin?: boolean
+  whole?: boolean
+  unit?: string
+}
+
+/** A finite number within bounds, with one plain message naming the field for every failure. */
+function quantity(label: string, bounds: Bounds) {
+  const unit = bounds.unit ? ` ${bounds.unit}` : ''
+  const message = bounds.whole
+    ? `${label} must be a whole number from ${bounds.min} to ${bounds.max}${unit}`
+    : bounds.aboveMin
+      ? `${label} must be more than ${bounds.min} and at most ${bounds.max}${unit}`
+      : `${label} must be a number from ${bounds.min} to ${bounds.max}${unit}`
+  // zod 4 numbers already refuse NaN and ±Infinity.
+  const number = z.number({ error: message })
+  const whole = bounds.whole ? number.int({ error: message }) : number
+  const low = bounds.aboveMin
+    ? whole.gt(bounds.min, { error: message })
+    : whole.min(bounds.min, { error: message })
+  return low.max(bounds.max, { error: message })
+}
+
+/** A supply or input voltage: positive, up to the absurd-magnitude guard. */
+function voltage(label: string) {
+  return quantity(label, { min: 0, max: MAX_SUPPLY_V, aboveMin: true, unit: 'V' })
+}
+
+function text(label: string, maxLength: number) {
+  const message = `${label} must be text of 1 to ${maxLength} characters`
+  return z
+    .string({ error: message })
+    .trim()
+    .min(1, { error: message })
+    .max(maxLength, { error: message })
+}
+
+function choice<const T extends readonly [string, ...string[]]>(label: string, values: T) {
+  return z.enum(values, { error: `${label} must be one of: ${values.join(', ')}` })
+}
+
+function flag(label: string) {
+  return z.boolean({ error: `${label} must be true or false` })
+}
+
+// Upper bounds are "absurd magnitude" guards for portable sound, far above any real rig, so a
+// typo (an extra zero or two) is caught while every real pack, amplifier and lead passes.
+const MAX_SUPPLY_V = 1000 // above any battery rig; 100 cells of li-ion are 420 V
+const MAX_SCHEDULE_MINUTES = 10080 // 7 days: an event plan, not a season
+
+export const CHEMISTRY_VALUES = CHEMISTRIES
+export const AMPLIFIER_CLASSES = ['d', 'ab', 'a'] as const
+export const ACCESSORY_FEEDS = [
+  'direct',
+  'buck',
+  'boost',
+  'buck-boost',
+  'isolated',
+  'linear',
+] as const
+export const SEGMENT_STATES = ['on', 'idle', 'off'] as const
+export const SWAP_MODES = ['when-empty', 'at-break-below'] as const
+export const STOP_REASONS = [
+  'pack-cutoff',
+  'cannot-deliver',
+  'amp-lockout',
+  'pack-empty',
+  'schedule-end',
+  'time-limit', // extension: a run without a schedule is capped at 7 days of simulated time
+] as const
+export const CONVERTER_VERDICTS = [
+  'direct-ok',
+  'step-down',
+  'step-up',
+  'buck-boost',
+  'over-max',
+] as const
+export const AIRLINE_CLASSES = ['up-to-100wh', '100-to-160wh', 'over-160wh'] as const
+export const SEVERITIES = ['info', 'caution', 'danger'] as const
+
+export const packSchema = z
+  .object(
+    {
+      chemistry: choice('Chemistry', CHEMISTRIES),
+      seriesCells: quantity('Cells in series', { min: 1, max: 100, whole: true }),
+      parallelCells: quantity('Cells in parallel', { min: 1, max: 100, whole: true }),
+      cellCapacityAh: quantity('Cell capacity', { min: 0, max: 1000, aboveMin: true, unit: 'Ah' }),
+      cellResistanceOhm: quantity('Cell resistance', {
+        min: 0,
+        max: 10,
+        aboveMin: true,
+        unit: 'ohm',
+      }).optional(),
+      cutoffCellV: quantity('Cutoff voltage per cell', {
+        min: 0,
+        max: 5,
+        aboveMin: true,
+        unit: 'V',
+      }).optional(),
+      // A measured capacity can beat the label a little, hence above 100 %.
+      healthPct: quantity('Pack health', {
+        min: 0,
+        max: 120,
+        aboveMin: true,
+        unit: '%',
+      }).optional(),
+      maxDischargeA: quantity('Maximum continuous discharge', {
+        min: 0,
+        max: 5000,
+        aboveMin: true,
+        unit: 'A',
+      }).optional(),
+      peukertExponent: quantity('Peukert exponent', { min: 1, max: 1.6 }).optional(),
+      count: quantity('Number of packs on hand', { min: 1, max: 50, whole: true }).optional(),
+      label: text('Pack name', 80).optional(),
+      massKg: quantity('Pack mass', { min: 0, max: 500, aboveMin: true, unit: 'kg' }).optional(),
+      price: quantity('Pack price', { min: 0, max: 1_000_000 }).optional(),
+    },
+    { error: 'Pack is required: chemistry, cells in series and parallel, and cell capacity' },
+  )
+  .superRefine((pack, context) => {
+    const fullCellV = CHEMISTRY_DATA[pack.chemistry].fullCellV
+    if (pack.cutoffCellV !== undefined && pack.cutoffCellV >= fullCellV) {
+      context.addIssue({
+        code: 'custom',
+        path: ['cutoffCellV'],
+        message: `Cutoff voltage per cell (${pack.cutoffCellV} V) must be below the full-charge voltage of a ${CHEMISTRY_DATA[pack.chemistry].label} cell (${fullCellV.toFixed(2)} V)`,
+      })
+    }
+  })
+
+export const leadsSchema = z
+  .object(
+    {
+      awg: quantity('Lead wire gauge (AWG; 2/0 is -1, 3/0 is -2, 4/0 is -3)', {
+        min: -3,
+        max: 40,
+        whole: true,
+      }).optional(),
+      areaMm2: quantity('Lead conductor area', {
+        min: 0,
+        max: 500,
+        aboveMin: true,
+        unit: 'mm²',
+      }).optional(),
+      lengthM: quantity('Lead length (one way)', { min: 0, max: 100, aboveMin: true, unit: 'm' }),
+      connectorOhm: quantity('Connector and fuse resistance', {
+        min: 0,
+        max: 1,
+        unit: 'ohm',
+      }).optional(),
+    },
+    { error: 'Leads must give a wire size (awg or areaMm2) and a one-way length' },
+  )
+  .superRefine((leads, context) => {
+    if ((leads.awg === undefined) === (leads.areaMm2 === undefined)) {
+      context.addIssue({
+        code: 'custom',
+        path: ['awg'],
+        message: "Give the lead's wire size either as AWG or as area in mm², exactly one of them",
+      })
+    }
+  })
+
+export const amplifierSchema = z
+  .object(
+    {
+      class: choice('Amplifier class', AMPLIFIER_CLASSES),
+      bridged: flag('Bridged (BTL) output'),
+      channels: quantity('Amplifier channels', { min: 1, max: 16, whole: true }),
+      ratedPowerW: quantity('Rated power per channel', {
+        min: 0,
+        max: 20000,
+        aboveMin: true,
+        unit: 'W',
+      }),
+      ratedLoadOhm: quantity('Rated load', { min: 0, max: 100, aboveMin: true, unit: 'ohm' }),
+      ratedSupplyV: voltage('Rated supply voltage'),
+      ratedThdPct: quantity('Distortion (THD) of the power rating', {
+        min: 0,
+        max: 30,
+        aboveMin: true,
+        unit: '%',
+      }).optional(),
+      supplyMinV: voltage('Minimum supply voltage').optional(),
+      supplyMaxV: voltage('Maximum supply voltage').optional(),
+      lockoutV: voltage('Lock-out (undervoltage mute) voltage').optional(),
+      idleCurrentA: quantity('Idle current', { min: 0, max: 50, unit: 'A' }).optional(),
+      efficiency: quantity('Amplifier efficiency', { min: 0, max: 1, aboveMin: true }).optional(),
+      minLoadOhm: quantity('Minimum load', {
+        min: 0,
+        max: 100,
+        aboveMin: true,
+        unit: 'ohm',
+      }).optional(),
+    },
+    {
+      error: 'Amplifier is required: class, bridged, channels and its rated power, load and supply',
+    },
+  )
+  .superRefine((amplifier, context) => {
+    const { supplyMinV, supplyMaxV, lockoutV, ratedSupplyV } = amplifier
+    const fail = (path: string, message: string) =>
+      context.addIssue({ code: 'custom', path: [path], message })
+    if (supplyMinV !== undefined && supplyMaxV !== undefined && supplyMinV > supplyMaxV) {
+      fail('supplyMinV', 'Minimum supply voltage must not be above the maximum supply voltage')
+    }
+    if (lockoutV !== undefined && supplyMaxV !== undefined && lockoutV >= supplyMaxV) {
+      fail('lockoutV', 'Lock-out voltage must be below the maximum supply voltage')
+    }
+    if (lockoutV !== undefined && lockoutV >= ratedSupplyV) {
+      fail('lockoutV', 'Lock-out voltage must be below the rated supply voltage')
+    }
+    if (supplyMaxV !== undefined && ratedSupplyV > supplyMaxV) {
+      fail('ratedSupplyV', 'Rated supply voltage must not be above the maximum supply voltage')
+    }
+    if (supplyMinV !== undefined && ratedSupplyV < supplyMinV) {
+      fail('ratedSupplyV', 'Rated supply voltage must not be below the minimum supply voltage')
+    }
+  })
+
+export const speakersSchema = z.object(
+  {
+    driverOhm: quantity('Driver impedance', { min: 0, max: 100, aboveMin: true, unit: 'ohm' }),
+    parallel: quantity('Drivers in parallel per bank', { min: 1, max: 64, whole: true }),
+    banks: quantity('Banks in series', { min: 1, max: 64, whole: true }),
+    sensitivityDb: quantity('Driver sensitivity (1 W, 1 m)', {
+      min: 50,
+      max: 130,
+      unit: 'dB',
+    }).optional(),
+    facingListener: quantity('Drivers facing the listener', {
+      min: 1,
+      max: 4096,
+      whole: true,
+    }).optional(),
+  },
+  { error: 'Speakers are required: driver impedance, drivers in parallel and banks in series' },
+)
+
+export const accessorySchema = z
+  .object(
+    {
+      label: text('Accessory name', 80),
+      powerW: quantity('Accessory power', { min: 0, max: 5000, aboveMin: true, unit: 'W' }),
+      inputMinV: voltage('Accessory minimum input voltage'),
+      inputMaxV: voltage('Accessory maximum input voltage'),
+      feed: choice('Accessory feed', ACCESSORY_FEEDS),
+      outputV: voltage('Converter output voltage').optional(),
+      efficiency: quantity('Converter efficiency', { min: 0, max: 1, aboveMin: true }).optional(),
+      idleW: quantity('Converter idle draw', { min: 0, max: 50, unit: 'W' }).optional(),
+    },
+    { error: 'Each accessory needs a name, power, input range and feed' },
+  )
+  .superRefine((accessory, context) => {
+    if (accessory.inputMinV > accessory.inputMaxV) {
+      context.addIssue({
+        code: 'custom',
+        path: ['inputMinV'],
+        message: `Accessory "${accessory.label}": minimum input voltage must not be above its maximum`,
+      })
+    } else if (
+      accessory.outputV !== undefined &&
+      (accessory.outputV < accessory.inputMinV || accessory.outputV > accessory.inputMaxV)
+    ) {
+      context.addIssue({
+        code: 'custom',
+        path: ['outputV'],
+        message: `Accessory "${accessory.label}": converter output voltage must lie within the accessory's input range (${accessory.inputMinV}–${accessory.inputMaxV} V)`,
+      })
+    }
+  })
+
+const crestFactorDb = quantity('Crest factor', { min: 0, max: 30, unit: 'dB' })
+const peakBelowClipDb = quantity('Level (peaks below clipping)', { min: 0, max: 60, unit: 'dB' })
+const playingPct = quantity('Playing share', { min: 0, max: 100, unit: '%' })
+
+export const programmeSchema = z.object(
+  { crestFactorDb, peakBelowClipDb, playingPct: playingPct.optional() },
+  { error: 'Programme is required: crest factor and level (peaks below clipping)' },
+)
+
+export const scheduleSegmentSchema = z.object(
+  {
+    label: text('Segment name', 80),
+    minutes: quantity('Segment length', {
+      min: 0,
+      max: MAX_SCHEDULE_MINUTES,
+      aboveMin: true,
+      unit: 'minutes',
+    }),
+    state: choice('Segment state', SEGMENT_STATES).optional(),
+    peakBelowClipDb: peakBelowClipDb.optional(),
+    crestFactorDb: crestFactorDb.optional(),
+    playingPct: playingPct.optional(),
+  },
+  { error: 'Each schedule segment needs a name and a length in minutes' },
+)
+
+export const swapPolicySchema = z.object(
+  {
+    mode: choice('Swap policy', SWAP_MODES),
+    belowSocPct: quantity('Swap threshold (state of charge)', {
+      min: 1,
+      max: 99,
+      unit: '%',
+    }).optional(),
+  },
+  { error: 'Swap policy must give a mode' },
+)
+
+export const estimateRequestSchema = z.object(
+  {
+    pack: packSchema,
+    leads: leadsSchema.optional(),
+    amplifier: amplifierSchema,
+    speakers: speakersSchema,
+    accessories: z
+      .array(accessorySchema, { error: 'Accessories must be a list' })
+      .max(20, { error: 'At most 20 accessories' })
+      .optional(),
+    programme: programmeSchema,
+    schedule: z
+      .array(scheduleSegmentSchema, { error: 'Schedule must be a list of segments' })
+      .min(1, { error: 'A schedule needs at least one segment' })
+      .max(200, { error: 'A schedule may have at most 200 segments' })
+      .refine(
+        (segments) =>
+          segments.reduce((total, segment) => total + segment.minutes, 0) <= MAX_SCHEDULE_MINUTES,
+        { error: `A schedule may last at most 7 days (${MAX_SCHEDULE_MINUTES} minutes) in all` },
+      )
+      .optional(),
+    temperatureC: quantity('Temperature', { min: -40, max: 70, unit: '°C' }).optional(),
+    listenerDistanceM: quantity('Listener distance', { min: 0.5, max: 1000, unit: 'm' }).optional(),
+    boundaryGainDb: quantity('Boundary gain', { min: 0, max: 12, unit: 'dB' }).optional(),
+    childrenPresent: flag('Children present').optional(),
+    swapPolicy: swapPolicySchema.optional(),
+  },
+  { error: 'The estimate request must be a JSON object' },
+)
+
+export type EstimateRequest = z.infer<typeof estimateRequestSchema>
+/** What a client may send (before parsing; the same shape, names and optional fields). */
+export type EstimateRequestInput = z.input<typeof estimateRequestSchema>
+export type PackSpec = z.infer<typeof packSchema>
+export type LeadsSpec = z.infer<typeof leadsSchema>
+export type AmplifierSpec = z.infer<typeof amplifierSchema>
+export type SpeakersSpec = z.infer<typeof speakersSchema>
+export type AccessorySpec = z.infer<typeof accessorySchema>
+export type ProgrammeSpec = z.infer<typeof programmeSchema>
+export type ScheduleSegment = z.infer<typeof scheduleSegmentSchema>
+export type SwapPolicy = z.infer<typeof swapPolicySchema>
+export type SegmentState = (typeof SEGMENT_STATES)[number]
+export type StopReason = (typeof STOP_REASONS)[number]
+export type ConverterVerdict = (typeof CONVERTER_VERDICTS)[number]
+export type AirlineClass = (typeof AIRLINE_CLASSES)[number]
+export type Severity = (typeof SEVERITIES)[number]
+
+// ---------- Result ----------
+// Results are produced by the engine; the schema documents them and lets tests and the client
+// check a response. Plain z.number() refuses NaN and Infinity, which the engine never returns.
+
+const finite = z.number()
+
+export const warningSchema = z.object({
+  code: z.string(),
+  message: z.string(),
+  severity: z.enum(SEVERITIES),
+})
+
+export const timelinePointSchema = z.object({
+  minute: finite,
+  socPct: finite,
+  /** Pack terminal voltage under the load at that moment. */
+  voltageV: finite,
+  /** Power out of the pack terminals. */
+  drawW: finite,
+  /** Clip power over the programme's peak power (of the segment, or the request's programme). */
+  headroomDb: finite,
+  pack: z.number().int(),
+  clipPowerW: finite,
+  state: z.enum(SEGMENT_STATES),
+})
+
+export const converterResultSchema = z.object({
+  label: z.string(),
+  verdict: z.enum(CONVERTER_VERDICTS),
+  feed: z.enum(ACCESSORY_FEEDS),
+  /** Whether the chosen feed suits the pack's window and the accessory's input range. */
+  fits: z.boolean(),
+  /** What to fit, in plain words. */
+  advice: z.string(),
+  windowMinV: finite,
+  windowMaxV: finite,
+  /** Voltage the accessory receives (outputV for converters, the pack window's top for direct). */
+  suppliedV: finite,
+  packDrawW: finite,
+  lossW: finite,
+  /** Heat in a linear regulator at full charge (the worst case); 0 for other feeds. */
+  linearHeatW: finite,
+})
+
+export const packRunSchema = z.object({
+  pack: z.number().int(),
+  startMinute: finite,
+  endMinute: finite,
+  /** Why this pack left the rig: a stop reason, or 'swapped' at a planned break. */
+  endReason: z.union([z.enum(STOP_REASONS), z.literal('swapped')]),
+  musicMinutes: finite,
+  lowestSocPct: finite,
+})
+
+export const assumedValueSchema = z.object({
+  field: z.string(),
+  value: z.union([finite, z.string(), z.boolean()]),
+  source: z.string(),
+})
+
+export const estimateResultSchema = z.object({
+  engineVersion: z.string(),
+  runtimeHours: finite,
+  stopReason: z.enum(STOP_REASONS),
+  /** Hours with the rig in an 'on' segment until it stopped. */
+  musicHours: finite,
+  averageDrawW: finite,
+  loadOhm: finite,
+  leadResistanceOhm: finite,
+  energyWh: z.object({ nominal: finite, delivered: finite, drawn: finite }),
+  airlineClass: z.enum(AIRLINE_CLASSES),
+  breakdownWh: z.object({
+    amplifierOutput: finite,
+    amplifierLoss: finite,
+    accessories: finite,
+    converterLoss: finite,
+    leadLoss: finite,
+    packLoss: finite,
+  }),
+  clipPowerW: z.object({ full: finite, cutoff: finite }),
+  peakCurrentA: finite,
+  minPeakTerminalV: finite,
+  dropoutRisk: z.boolean(),
+  splDb: z.object({ average: finite, peak: finite }).optional(),
+  exposure: z
+    .object({
+      permittedMinutes: finite,
+      levelDb: finite,
+      dosePct: finite.optional(),
+      overWhoVenueLimit: z.boolean(),
+    })
+    .optional(),
+  converters: z.array(converterResultSchema),
+  warnings: z.array(warningSchema),
+  timeline: z.array(timelinePointSchema).max(500),
+  schedule: z
+    .object({
+      lasts: z.boolean(),
+      packsUsed: z.number().int(),
+      swaps: z.array(z.object({ atMinute: finite, pack: z.number().int() })),
+      totalMinutes: finite,
+      stoppedAtMinute: finite.nullable(),
+    })
+    .optional(),
+  pack: z.object({
+    label: z.string().optional(),
+    nominalV: finite,
+    fullV: finite,
+    cutoffV: finite,
+    ratedCapacityAh: finite,
+    capacityAh: finite,
+    resistanceOhm: finite,
+    nominalWh: finite,
+    count: z.number().int(),
+    massKg: finite.optional(),
+    whPerKg: finite.optional(),
+  }),
+  amplifier: z.object({
+    outputResistanceOhm: finite,
+    lockoutV: finite.nullable(),
+    supplyMaxV: finite.nullable(),
+    /** Average output over the 'on' time, all channels. */
+    averageOutputW: finite,
+  }),
+  speakers: z.object({
+    loadOhm: finite,
+    driversPerChannel: z.number().int(),
+    powerPerDriverW: z.object({ average: finite, peak: finite }),
+  }),
+  leads: z.object({
+    resistanceOhm: finite,
+    dropPct: z.object({ average: finite, peak: finite }),
+    averageLossW: finite,
+  }),
+  headroom: z.object({ minimumDb: finite, clipsFromMinute: finite.nullable() }),
+  averageCurrentA: finite,
+  lowestSocPct: finite,
+  packRuns: z.array(packRunSchema),
+  assumed: z.array(assumedValueSchema),
+})
+
+export type EstimateResult = z.infer<typeof estimateResultSchema>
+export type EstimateWarning = z.infer<typeof warningSchema>
+export type TimelinePoint = z.infer<typeof timelinePointSchema>
+export type ConverterResult = z.infer<typeof converterResultSchema>
+export type PackRun = z.infer<typeof packRunSchema>
+export type AssumedValue = z.infer<typeof assumedValueSchema>
