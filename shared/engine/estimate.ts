@@ -38,6 +38,7 @@ import {
 } from './run'
 import { equivalentLevelDb, nioshPermittedMinutes, soundLevelDb, WHO_VENUE_LAEQ_DB } from './sound'
 import { driversPerChannel, loadOhm } from './speakers'
+import { dropoutOnset } from './dropout'
 import { ENGINE_VERSION } from './version'
 import { collectWarnings } from './warnings'
 
@@ -225,6 +226,16 @@ export function summarise(prepared: PreparedRig, outcome: RunOutcome): EstimateR
   const peak = peakDemand(rig, loudest ? loudest.peakPerChannelW : 0, outcome.lowestSoc)
   const dropoutRisk =
     !peak.delivered || (amplifier.lockoutV !== null && peak.supplyV < amplifier.lockoutV)
+  const timeline = outcome.timeline ? outcome.timeline.points() : []
+  const dropout = dropoutRisk
+    ? dropoutOnset(
+        rig,
+        loudest ? loudest.peakPerChannelW : 0,
+        amplifier.lockoutV,
+        outcome.lowestSoc,
+        timeline,
+      )
+    : null
 
   // Accessories against the pack's window over the whole discharge (engine.md §6).
   const windowMaxV = fullOpenCircuitV
@@ -334,6 +345,7 @@ export function summarise(prepared: PreparedRig, outcome: RunOutcome): EstimateR
     leadDropPct,
     hasLeads: resolved.leads !== null,
     dropoutRisk,
+    dropout,
     minPeakSupplyV: peak.supplyV,
     clipsFromMinute: outcome.clipsFromS === null ? null : outcome.clipsFromS / 60,
     converters,
@@ -383,11 +395,12 @@ export function summarise(prepared: PreparedRig, outcome: RunOutcome): EstimateR
     peakCurrentA: peak.currentA,
     minPeakTerminalV: peak.supplyV,
     dropoutRisk,
+    dropout,
     ...(splDb ? { splDb } : {}),
     ...(exposure ? { exposure } : {}),
     converters,
     warnings,
-    timeline: outcome.timeline ? outcome.timeline.points() : [],
+    timeline,
     ...(scheduleResult ? { schedule: scheduleResult } : {}),
     pack: {
       ...(resolved.pack.label === undefined ? {} : { label: resolved.pack.label }),

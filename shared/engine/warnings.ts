@@ -4,12 +4,17 @@ import type { ConverterResult, EstimateWarning, Severity, StopReason } from '../
 import type { Chemistry } from './chemistry'
 import { CHEMISTRY_DATA } from './chemistry'
 import { LINEAR_HEAT_LIMIT_W } from './converters'
+import type { DropoutOnset } from './dropout'
 import { IMPEDANCE_DIP_FACTOR } from './speakers'
 import { CHILDREN_CAUTION_DB, NIOSH_REL_DBA, WHO_VENUE_LAEQ_DB } from './sound'
 
 export const LEAD_DROP_LIMIT_PCT = 3 // common practice: keep DC supply leads under 3 % drop
 export const LEAD_ACID_DEEP_DISCHARGE_SOC = 0.5 // common practice: below 50 % shortens AGM life
 export const COLD_PACK_C = 5 // ours: where the cold costs enough capacity to mention
+// ours: peaks that mute only in a pack's last 15 % are a reason to swap early, not to change the rig
+export const DROPOUT_NEAR_EMPTY_SOC_PCT = 15
+// ours: a lock-out that leaves under 2 % of the pack unused is within the tables' own error
+export const STRANDED_SOC_MINIMUM_PCT = 2
 export const HOT_PACK_C = 45 // common practice: lithium makers' upper discharge range starts near here
 
 export const WARNING_CATALOGUE = {
@@ -57,6 +62,10 @@ export const WARNING_CATALOGUE = {
   'dropout-risk': {
     severity: 'danger',
     meaning: 'On bass peaks late in the run the supply falls below the lock-out: music cuts out.',
+  },
+  'dropout-near-empty': {
+    severity: 'caution',
+    meaning: 'Near the end of each pack, bass peaks take the supply below the lock-out.',
   },
   'peaks-clip': {
     severity: 'caution',
@@ -157,6 +166,7 @@ export interface WarningFacts {
   leadDropPct: { average: number; peak: number }
   hasLeads: boolean
   dropoutRisk: boolean
+  dropout: DropoutOnset | null
   minPeakSupplyV: number
   clipsFromMinute: number | null
   converters: readonly ConverterResult[]
@@ -229,7 +239,10 @@ export function collectWarnings(facts: WarningFacts): EstimateWarning[] {
       "Enter the amplifier's supply range and lock-out voltage from its datasheet so the pack voltage can be checked against them.",
     )
   }
-  if (facts.lockoutV !== null && facts.lockoutV > facts.cutoffSupplyV) {
+  // A lock-out that only just meets the cutoff strands nothing worth a warning.
+  const strandsEnergy =
+    facts.stopReason !== 'amp-lockout' || facts.lowestSocPct >= STRANDED_SOC_MINIMUM_PCT
+  if (facts.lockoutV !== null && facts.lockoutV > facts.cutoffSupplyV && strandsEnergy) {
     const left =
       facts.stopReason === 'amp-lockout'
         ? ` About ${Math.round(facts.lowestSocPct)} % of the pack is left when it mutes.`
@@ -261,11 +274,30 @@ export function collectWarnings(facts: WarningFacts): EstimateWarning[] {
       `The lead loses ${fixed(facts.leadDropPct.average)} % of the pack voltage at the average draw (${fixed(facts.leadDropPct.peak)} % on peaks): use a thicker or shorter lead.`,
     )
   }
-  if (facts.dropoutRisk) {
-    add(
-      'dropout-risk',
-      `On bass peaks late in the run the amplifier's supply falls to ${fixed(facts.minPeakSupplyV)} V${facts.lockoutV !== null ? `, below its ${fixed(facts.lockoutV)} V lock-out` : ''}, so music may cut out: lower the level, use a thicker, shorter lead, or a pack with more cells in parallel.`,
-    )
+  // Peaks that mute only in the last couple of percent are within the tables' own error.
+  const dropoutMatters =
+    facts.dropoutRisk && !(facts.dropout && facts.dropout.belowSocPct < STRANDED_SOC_MINIMUM_PCT)
+  if (dropoutMatters) {
+    const onset = facts.dropout
+    const when =
+      onset && onset.fromMinute !== null
+        ? `, from about minute ${Math.round(onset.fromMinute)}`
+        : ''
+    const lockout = facts.lockoutV !== null ? ` ${fixed(facts.lockoutV)} V` : ''
+    if (onset && onset.belowSocPct < DROPOUT_NEAR_EMPTY_SOC_PCT) {
+      add(
+        'dropout-near-empty',
+        `Once a pack is below about ${Math.round(onset.belowSocPct)} % charge${when}, bass peaks pull the amplifier's supply under its${lockout} lock-out and music may cut out: swap packs a little before then, or use a thicker, shorter lead or a pack with more cells in parallel.`,
+      )
+    } else {
+      const from = onset
+        ? ` once a pack is below about ${Math.round(onset.belowSocPct)} % charge${when}`
+        : ''
+      add(
+        'dropout-risk',
+        `On bass peaks the amplifier's supply falls to ${fixed(facts.minPeakSupplyV)} V${facts.lockoutV !== null ? `, below its ${fixed(facts.lockoutV)} V lock-out,` : ''}${from}, so music may cut out well before the pack is flat: lower the level, use a thicker, shorter lead, or a pack with more cells in parallel.`,
+      )
+    }
   }
   if (facts.clipsFromMinute !== null) {
     add(

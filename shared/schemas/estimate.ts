@@ -448,6 +448,8 @@ export const estimateResultSchema = z.object({
   peakCurrentA: finite,
   minPeakTerminalV: finite,
   dropoutRisk: z.boolean(),
+  /** Extension: the charge below which peaks mute the amplifier, and the first minute of it. */
+  dropout: z.object({ belowSocPct: finite, fromMinute: finite.nullable() }).nullable(),
   splDb: z.object({ average: finite, peak: finite }).optional(),
   exposure: z
     .object({

@@ -214,14 +214,18 @@ describe('time-stepped run', () => {
     const result = estimate(
       variant(rig, {
         leads: { awg: 24, lengthM: 3 },
-        amplifier: { ...rig.amplifier, lockoutV: 13.8 },
+        amplifier: { ...rig.amplifier, lockoutV: 16 },
         programme: { crestFactorDb: 12, peakBelowClipDb: 0 },
       }),
     )
     expect(result.leadResistanceOhm).toBeGreaterThan(0.5)
     expect(result.dropoutRisk).toBe(true)
-    expect(result.minPeakTerminalV).toBeLessThan(13.8)
-    expect(result.warnings.map((warning) => warning.code)).toContain('dropout-risk')
+    expect(result.minPeakTerminalV).toBeLessThan(16)
+    expect(result.dropout).not.toBeNull()
+    const codes = result.warnings.map((warning) => warning.code)
+    expect(codes.some((code) => code === 'dropout-risk' || code === 'dropout-near-empty')).toBe(
+      true,
+    )
     expect(result.leads.dropPct.peak).toBeGreaterThan(result.leads.dropPct.average)
   })
 })
