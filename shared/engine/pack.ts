@@ -111,14 +111,16 @@ export function mixedLoadCurrentA(
 
 /**
  * Rate at which charge leaves the pack under Peukert's law (engine.md §1):
- * dQ/dt = I·(I/I_rated)^(k−1).
+ * dQ/dt = I·(I/I_rated)^(k−1) above the rated current, I below it.
  */
 export function peukertChargeRateA(
   currentA: number,
   ratedCurrentA: number,
   peukertExponent: number,
 ): number {
-  if (currentA <= 0 || peukertExponent === 1) return currentA
+  // Common practice: the law is fitted from the rated current upwards; below it a pack gives its
+  // rated capacity, not more (more would exceed the energy its own OCV table holds).
+  if (currentA <= ratedCurrentA || peukertExponent === 1) return currentA
   // exp(a·ln x) is x^a, about twice as fast as Math.pow in V8, and this runs every step.
   return currentA * Math.exp((peukertExponent - 1) * Math.log(currentA / ratedCurrentA))
 }

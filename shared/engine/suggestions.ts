@@ -3,6 +3,7 @@ import type { EstimateRequest, PackSpec } from '../schemas/estimate'
 import { MAX_PACKS_SEARCHED, packsNeededForSchedule } from './compare'
 import { prepareRig, runPrepared } from './estimate'
 import { nominalWh } from './energy'
+import { CHEMISTRY_DATA } from './chemistry'
 import { buildPack } from './pack'
 import { resolveRequest } from './resolve'
 
@@ -49,6 +50,14 @@ function quieterBy(request: EstimateRequest, db: number): RequestPatch {
   }
 }
 
+// ours: packs within 10 % of the same nominal voltage count as one class (e.g. 5S li-ion and
+// 15S NiMH, both 18 V); a larger pack is suggested only from the rig's own class.
+const SAME_CLASS_V_FRACTION = 0.1
+
+function packNominalV(pack: PackSpec): number {
+  return pack.seriesCells * CHEMISTRY_DATA[pack.chemistry].nominalCellV
+}
+
 function packNominalWh(request: EstimateRequest, pack: PackSpec): number {
   const { resolved } = resolveRequest({ ...request, pack })
   const model = buildPack(resolved.pack, resolved.temperatureC)
@@ -85,8 +94,15 @@ export function suggestFixes(
       : null
 
   const currentWh = packNominalWh(request, request.pack)
+  const currentV = packNominalV(request.pack)
   const larger = candidatePacks
     .map((pack, index) => ({ pack, index, nominalWh: packNominalWh(request, pack) }))
+    // Only the same voltage class: another class changes the amplifier's supply and every
+    // converter verdict, which is a different rig rather than a larger pack.
+    .filter(
+      (candidate) =>
+        Math.abs(packNominalV(candidate.pack) - currentV) <= SAME_CLASS_V_FRACTION * currentV,
+    )
     .filter((candidate) => candidate.nominalWh > currentWh)
     .sort((a, b) => a.nominalWh - b.nominalWh)
   let largerPack: FixSuggestions['largerPack'] = null

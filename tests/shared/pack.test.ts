@@ -91,4 +91,11 @@ describe('Peukert', () => {
     )
     expect(peukertChargeRateA(7, 5, 1)).toBe(7)
   })
+
+  it('gives no more than the rated capacity below the rated current', () => {
+    // Common practice: Peukert's law is fitted from the rated (20-hour) current upwards; a
+    // 100 Ah battery at 1 A still holds 100 Ah, not the 138 Ah the bare formula would give.
+    expect(100 / peukertChargeRateA(1, 5, 1.2)).toBeCloseTo(100, 9)
+    expect(peukertRuntimeHours(100, 20, 1, 1.2)).toBeGreaterThan(100)
+  })
 })
