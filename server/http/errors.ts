@@ -46,17 +46,21 @@ export function parseInput<S extends z.ZodType>(
 }
 
 export const apiNotFound: RequestHandler = (req, _res, next) => {
-  next(new ApiError(404, 'not-found', `No API route for ${req.method} ${req.path}`))
+  const path = req.originalUrl.split('?')[0]
+  next(new ApiError(404, 'not-found', `No API route for ${req.method} ${path}`))
 }
 
-interface BodyParserError {
+interface HttpLibraryError {
   type?: string
   status?: number
   expose?: boolean
 }
 
-/** Maps body-parser failures (malformed JSON, oversized bodies) onto our error shape. */
-function fromBodyParser(error: BodyParserError): ApiError | undefined {
+/**
+ * Maps the errors Express's own middleware raises (body-parser: malformed JSON, oversized bodies;
+ * serve-static: a missing file) onto our error shape.
+ */
+function fromHttpLibrary(error: HttpLibraryError): ApiError | undefined {
   switch (error.type) {
     case 'entity.parse.failed':
       return new ApiError(400, 'malformed-json', 'The request body is not valid JSON.')
@@ -70,6 +74,10 @@ function fromBodyParser(error: BodyParserError): ApiError | undefined {
         'The request body encoding is not supported.',
       )
     default:
+      if (error.status === 404) return new ApiError(404, 'not-found', 'No such file.')
+      if (error.expose && error.status && error.status >= 400 && error.status < 500) {
+        return new ApiError(error.status, `http-${error.status}`, 'The request was refused.')
+      }
       return undefined
   }
 }
@@ -83,7 +91,7 @@ export function errorHandler(options: { exposeStack: boolean; log: (error: unkno
         : error instanceof z.ZodError
           ? invalidInput(error)
           : typeof error === 'object' && error !== null
-            ? fromBodyParser(error as BodyParserError)
+            ? fromHttpLibrary(error as HttpLibraryError)
             : undefined
     if (known) {
       for (const [name, value] of Object.entries(known.headers ?? {})) res.setHeader(name, value)
