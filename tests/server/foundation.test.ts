@@ -68,6 +68,7 @@ describe('serving the built client', () => {
     env: parseEnv({ NODE_ENV: 'production', LOUDHOUR_DEMO: 'false' }),
     database: ownDatabase.database,
     sessionSecret: 'a'.repeat(40),
+    mail: ownDatabase.mail,
     distDir,
     log: () => {},
   })

@@ -1,0 +1,17 @@
+import type { AppDatabase } from '../db/client'
+import type { Clock } from '../clock'
+import type { Env } from '../env'
+import type { Mailer } from '../mail/mailer'
+import type { SessionCookie } from './session-cookie'
+import type { SessionStore } from './sessions'
+
+/** What the account, team and invitation routes share; built once in createApp. */
+export interface AccountsContext {
+  db: AppDatabase
+  publicUrl: Env['PUBLIC_URL']
+  clock: Clock
+  sessions: SessionStore
+  cookie: SessionCookie
+  mail: Mailer
+  log: (error: unknown) => void
+}

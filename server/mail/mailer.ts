@@ -1,0 +1,90 @@
+import nodemailer, { type Transporter } from 'nodemailer'
+import type { Clock } from '../clock'
+import { startFakeSmtp, type FakeSmtpServer } from './fake-smtp'
+import type { MailMessage } from './message'
+import { captureHeader, Outbox } from './outbox'
+
+export interface Mailer {
+  /** Sends now and resolves once the SMTP server has accepted the message. */
+  send(message: MailMessage): Promise<void>
+  /**
+   * Sends without making the caller wait, so an answer takes as long whether or not a message
+   * went out (password reset must not reveal which addresses have accounts).
+   */
+  sendInBackground(message: MailMessage): void
+  /** Resolves when every background send has finished (tests, shutdown). */
+  settled(): Promise<void>
+  /** The built-in catcher, or undefined when mail goes to a real SMTP_URL. */
+  outbox: Outbox | undefined
+  /** Starts the built-in SMTP server now instead of at the first message; returns its port. */
+  start(): Promise<number | undefined>
+  close(): Promise<void>
+}
+
+export interface MailerOptions {
+  smtpUrl: string | undefined
+  from: string
+  clock: Clock
+  log: (error: unknown) => void
+}
+
+export function createMailer(options: MailerOptions): Mailer {
+  const outbox = options.smtpUrl ? undefined : new Outbox(options.clock)
+  let fakeServer: Promise<FakeSmtpServer> | undefined
+  let transport: Promise<Transporter> | undefined
+  const inFlight = new Set<Promise<void>>()
+
+  function getFakeServer(catcher: Outbox): Promise<FakeSmtpServer> {
+    fakeServer ??= startFakeSmtp((raw, recipients) => catcher.receive(raw, recipients))
+    return fakeServer
+  }
+
+  function getTransport(): Promise<Transporter> {
+    transport ??= options.smtpUrl
+      ? Promise.resolve(nodemailer.createTransport(options.smtpUrl))
+      : getFakeServer(outbox as Outbox).then(({ port }) =>
+          nodemailer.createTransport({ host: '127.0.0.1', port, secure: false, ignoreTLS: true }),
+        )
+    return transport
+  }
+
+  async function send(message: MailMessage): Promise<void> {
+    const captureId = outbox?.expect(message)
+    try {
+      await (
+        await getTransport()
+      ).sendMail({
+        from: options.from,
+        to: message.to,
+        subject: message.subject,
+        text: message.text,
+        html: message.html,
+        headers: captureId ? { [captureHeader]: captureId } : {},
+      })
+    } finally {
+      if (captureId) outbox?.forget(captureId)
+    }
+  }
+
+  return {
+    send,
+    sendInBackground(message) {
+      const sending = send(message).catch(options.log)
+      inFlight.add(sending)
+      void sending.finally(() => inFlight.delete(sending))
+    },
+    async settled() {
+      await Promise.all([...inFlight])
+    },
+    outbox,
+    async start() {
+      if (!outbox) return undefined
+      return (await getFakeServer(outbox)).port
+    },
+    async close() {
+      await Promise.all([...inFlight])
+      ;(await transport)?.close()
+      await (await fakeServer)?.close()
+    },
+  }
+}

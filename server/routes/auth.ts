@@ -1,0 +1,215 @@
+import { Router, type Request } from 'express'
+import { eq } from 'drizzle-orm'
+import {
+  emailSchema,
+  passwordChangeSchema,
+  passwordResetConfirmSchema,
+  passwordResetRequestSchema,
+  profileUpdateSchema,
+  signInSchema,
+  signUpSchema,
+} from '../../shared/schemas/auth'
+import { createAccount, findUserByEmail, findUserById, replacePassword } from '../auth/accounts'
+import type { AccountsContext } from '../auth/context'
+import { meResponse, signIn } from '../auth/me'
+import { teamsOf } from '../auth/memberships'
+import {
+  completePasswordReset,
+  findPendingReset,
+  issuePasswordReset,
+} from '../auth/password-resets'
+import { invalidLinkToken } from '../auth/link-tokens'
+import { assertPasswordStrong } from '../auth/password-strength'
+import { hashPassword, verifyPassword } from '../auth/passwords'
+import { requireUser, signedInUser } from '../auth/require'
+import { users } from '../db/schema'
+import { ApiError, parseInput } from '../http/errors'
+import { throttle } from '../http/throttle'
+import { linkTo, passwordResetMail } from '../mail/templates'
+
+const quarterHourMs = 15 * 60 * 1000
+const hourMs = 60 * 60 * 1000
+
+/** The normalised address in the body, as the per-account limiters count it. */
+function bodyEmail(req: Request): string | undefined {
+  const parsed = emailSchema.safeParse((req.body as { email?: unknown } | undefined)?.email)
+  return parsed.success ? `account:${parsed.data}` : undefined
+}
+
+// OWASP Authentication Cheat Sheet: throttle failed sign-ins per account and per source. Ten
+// wrong passwords per quarter hour per account keeps an online guesser to ~1,000 tries a day.
+const signInThrottles = () => [
+  throttle({
+    name: 'sign_in_address',
+    windowMs: quarterHourMs,
+    limit: 30,
+    key: 'address',
+    countFailuresOnly: true,
+    message: 'Too many failed sign-ins from this address. Wait a few minutes and try again.',
+  }),
+  throttle({
+    name: 'sign_in_account',
+    windowMs: quarterHourMs,
+    limit: 10,
+    key: bodyEmail,
+    countFailuresOnly: true,
+    message:
+      'Too many failed sign-ins for this account. Wait a few minutes, or reset the password.',
+  }),
+]
+
+// Reset requests send mail: keep one address from flooding an inbox or the mail server.
+const resetThrottles = () => [
+  throttle({
+    name: 'reset_address',
+    windowMs: hourMs,
+    limit: 20,
+    key: 'address',
+    message: 'Too many reset requests from this address. Wait a while and try again.',
+  }),
+  throttle({
+    name: 'reset_account',
+    windowMs: hourMs,
+    limit: 5,
+    key: bodyEmail,
+    message:
+      'Several reset links were sent to this address already. Check the inbox, or wait an hour.',
+  }),
+]
+
+const signUpThrottle = () =>
+  throttle({
+    name: 'sign_up_address',
+    windowMs: hourMs,
+    limit: 30,
+    key: 'address',
+    message: 'Too many new accounts from this address. Wait a while and try again.',
+  })
+
+const wrongCredentials = () =>
+  new ApiError(
+    401,
+    'wrong-credentials',
+    'That e-mail address and password do not match an account.',
+  )
+
+export function authRouter(context: AccountsContext): Router {
+  const { db, clock, sessions, cookie, mail } = context
+  const router = Router()
+
+  router.post('/sign-up', signUpThrottle(), async (req, res) => {
+    const input = parseInput(signUpSchema, req.body)
+    assertPasswordStrong(input.password, [input.email, input.name])
+    const taken = () =>
+      new ApiError(
+        409,
+        'email-taken',
+        'email: An account with this address exists; sign in instead.',
+        [{ path: 'email', message: 'An account with this address exists; sign in instead' }],
+      )
+    if (findUserByEmail(db, input.email)) throw taken()
+    const passwordHash = await hashPassword(input.password)
+    let userId: number
+    try {
+      userId = createAccount(
+        db,
+        { email: input.email, name: input.name, passwordHash },
+        clock().getTime(),
+      )
+    } catch (error) {
+      // Two sign-ups with one address at once: the unique index lets only one through.
+      if (findUserByEmail(db, input.email)) throw taken()
+      throw error
+    }
+    await signIn(context, res, userId)
+    res.status(201).json(meResponse(context, userId))
+  })
+
+  router.post('/sign-in', ...signInThrottles(), async (req, res) => {
+    const input = parseInput(signInSchema, req.body)
+    const user = findUserByEmail(db, input.email)
+    const matches = await verifyPassword(user?.passwordHash, input.password)
+    if (!user || !matches) throw wrongCredentials()
+    await signIn(context, res, user.id)
+    res.json(meResponse(context, user.id))
+  })
+
+  router.post('/sign-out', (req, res) => {
+    if (req.auth) sessions.end(req.auth.sessionId)
+    cookie.clear(res)
+    res.status(204).end()
+  })
+
+  router.post('/sign-out-everywhere', requireUser, (req, res) => {
+    sessions.endAllForUser(signedInUser(req).user.id)
+    cookie.clear(res)
+    res.status(204).end()
+  })
+
+  router.get('/me', requireUser, (req, res) => {
+    res.json(meResponse(context, signedInUser(req).user.id))
+  })
+
+  // For the client's first look: answers 200 either way, so a signed-out visit logs no error.
+  router.get('/session', (req, res) => {
+    res.json({ session: req.auth ? meResponse(context, req.auth.user.id) : null })
+  })
+
+  router.patch('/me', requireUser, (req, res) => {
+    const { user } = signedInUser(req)
+    const input = parseInput(profileUpdateSchema, req.body)
+    db.update(users)
+      .set({ name: input.name, updatedAtMs: clock().getTime() })
+      .where(eq(users.id, user.id))
+      .run()
+    res.json(meResponse(context, user.id))
+  })
+
+  // Changing the password ends every session, this one included, then signs this browser in again.
+  router.post('/password', requireUser, async (req, res) => {
+    const { user } = signedInUser(req)
+    const input = parseInput(passwordChangeSchema, req.body)
+    const stored = findUserById(db, user.id)
+    if (!(await verifyPassword(stored?.passwordHash, input.currentPassword))) {
+      const message = 'This is not the current password'
+      throw new ApiError(400, 'wrong-password', `currentPassword: ${message}`, [
+        { path: 'currentPassword', message },
+      ])
+    }
+    assertPasswordStrong(input.newPassword, [user.email, user.name], 'newPassword')
+    replacePassword(db, user.id, await hashPassword(input.newPassword), clock().getTime())
+    await signIn(context, res, user.id)
+    res.json(meResponse(context, user.id))
+  })
+
+  // 202 whatever the address: the answer must not tell whether an account exists, so the mail
+  // goes out in the background and the timing does not depend on it either.
+  router.post('/password-reset', ...resetThrottles(), (req, res) => {
+    const input = parseInput(passwordResetRequestSchema, req.body)
+    const user = findUserByEmail(db, input.email)
+    if (user) {
+      const token = issuePasswordReset(db, user.id, clock().getTime())
+      mail.sendInBackground(
+        passwordResetMail({
+          to: user.email,
+          teamIds: teamsOf(db, user.id).map((team) => team.id),
+          url: linkTo(context.publicUrl, '/reset-password', token),
+        }),
+      )
+    }
+    res.status(202).json({ message: 'If an account has this address, a reset link is on its way.' })
+  })
+
+  router.post('/password-reset/confirm', async (req, res) => {
+    const input = parseInput(passwordResetConfirmSchema, req.body)
+    const reset = findPendingReset(db, input.token, clock().getTime())
+    if (!reset) throw invalidLinkToken('reset')
+    assertPasswordStrong(input.password, [reset.email, reset.name])
+    const passwordHash = await hashPassword(input.password)
+    if (!completePasswordReset(db, reset, passwordHash, clock().getTime()))
+      throw invalidLinkToken('reset')
+    res.status(204).end()
+  })
+
+  return router
+}

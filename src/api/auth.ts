@@ -1,0 +1,42 @@
+import type { MeResponse } from '../../shared/schemas/account-responses'
+import type {
+  PasswordChangeInput,
+  PasswordResetConfirmInput,
+  PasswordResetRequestInput,
+  ProfileUpdateInput,
+  SignInInput,
+  SignUpInput,
+} from '../../shared/schemas/auth'
+import { apiRequest } from './http'
+
+// The accounts API (design/api.md, "Accounts"); the session itself lives in an HttpOnly cookie.
+
+/** The current session, or null when signed out (200 either way, unlike `GET /auth/me`). */
+export const fetchSession = () => apiRequest<{ session: MeResponse | null }>('/v1/auth/session')
+
+export const signIn = (input: SignInInput) =>
+  apiRequest<MeResponse>('/v1/auth/sign-in', {
+    method: 'POST',
+    body: input,
+    quietUnauthorized: true,
+  })
+
+export const signUp = (input: SignUpInput) =>
+  apiRequest<MeResponse>('/v1/auth/sign-up', { method: 'POST', body: input })
+
+export const signOut = () => apiRequest<void>('/v1/auth/sign-out', { method: 'POST' })
+
+export const signOutEverywhere = () =>
+  apiRequest<void>('/v1/auth/sign-out-everywhere', { method: 'POST' })
+
+export const updateProfile = (input: ProfileUpdateInput) =>
+  apiRequest<MeResponse>('/v1/auth/me', { method: 'PATCH', body: input })
+
+export const changePassword = (input: PasswordChangeInput) =>
+  apiRequest<MeResponse>('/v1/auth/password', { method: 'POST', body: input })
+
+export const requestPasswordReset = (input: PasswordResetRequestInput) =>
+  apiRequest<{ message: string }>('/v1/auth/password-reset', { method: 'POST', body: input })
+
+export const confirmPasswordReset = (input: PasswordResetConfirmInput) =>
+  apiRequest<void>('/v1/auth/password-reset/confirm', { method: 'POST', body: input })

@@ -1,0 +1,111 @@
+import { defineStore } from 'pinia'
+import { computed, ref } from 'vue'
+import * as authApi from '@/api/auth'
+import { ApiRequestError } from '@/api/http'
+import type { MeResponse, TeamView } from '../../shared/schemas/account-responses'
+import type { SignInInput, SignUpInput } from '../../shared/schemas/auth'
+
+const currentTeamKey = 'loudhour.current-team.v1'
+
+function storedTeamId(): number | undefined {
+  try {
+    const value = Number(localStorage.getItem(currentTeamKey))
+    return Number.isSafeInteger(value) && value > 0 ? value : undefined
+  } catch {
+    return undefined
+  }
+}
+
+/** Who is signed in, their teams, and which team the app is working in. */
+export const useSessionStore = defineStore('session', () => {
+  const me = ref<MeResponse | undefined>()
+  /** 'unknown' until the first `load()` has answered. */
+  const status = ref<'unknown' | 'signed-in' | 'signed-out'>('unknown')
+  const chosenTeamId = ref<number | undefined>(storedTeamId())
+  let loading: Promise<void> | undefined
+
+  const user = computed(() => me.value?.user)
+  const teams = computed<TeamView[]>(() => me.value?.teams ?? [])
+  const currentTeam = computed<TeamView | undefined>(
+    () => teams.value.find((team) => team.id === chosenTeamId.value) ?? teams.value[0],
+  )
+  const currentTeamId = computed(() => currentTeam.value?.id)
+  const isAdminSomewhere = computed(() => teams.value.some((team) => team.role === 'admin'))
+  const outboxAvailable = computed(() => !!me.value?.devOutbox && isAdminSomewhere.value)
+
+  function apply(answer: MeResponse): void {
+    me.value = answer
+    status.value = 'signed-in'
+  }
+
+  function clear(): void {
+    me.value = undefined
+    status.value = 'signed-out'
+  }
+
+  /** Asks the server who is signed in; an unreachable server counts as signed out. */
+  async function load(): Promise<void> {
+    try {
+      const { session } = await authApi.fetchSession()
+      if (session) apply(session)
+      else clear()
+    } catch (error) {
+      if (!(error instanceof ApiRequestError)) throw error
+      clear()
+    }
+  }
+
+  /** Loads once; later calls wait for the same answer. */
+  function ensureLoaded(): Promise<void> {
+    if (status.value !== 'unknown') return Promise.resolve()
+    loading ??= load().finally(() => (loading = undefined))
+    return loading
+  }
+
+  async function signIn(input: SignInInput): Promise<void> {
+    apply(await authApi.signIn(input))
+  }
+
+  async function signUp(input: SignUpInput): Promise<void> {
+    apply(await authApi.signUp(input))
+  }
+
+  async function signOut(): Promise<void> {
+    await authApi.signOut()
+    clear()
+  }
+
+  async function signOutEverywhere(): Promise<void> {
+    await authApi.signOutEverywhere()
+    clear()
+  }
+
+  function chooseTeam(teamId: number): void {
+    chosenTeamId.value = teamId
+    try {
+      localStorage.setItem(currentTeamKey, String(teamId))
+    } catch {
+      // Storage refused (private browsing): the choice holds for this visit.
+    }
+  }
+
+  return {
+    me,
+    status,
+    user,
+    teams,
+    currentTeam,
+    currentTeamId,
+    isAdminSomewhere,
+    outboxAvailable,
+    apply,
+    clear,
+    load,
+    ensureLoaded,
+    signIn,
+    signUp,
+    signOut,
+    signOutEverywhere,
+    chooseTeam,
+  }
+})
