@@ -90,9 +90,7 @@ export async function seriousAxeViolations(page: Page): Promise<AxeViolation[]> 
     const axe = (
       window as unknown as {
         axe: {
-          run: (
-            context: Document,
-          ) => Promise<{
+          run: (context: Document) => Promise<{
             violations: { id: string; impact: string | null; help: string; nodes: unknown[] }[]
           }>
         }

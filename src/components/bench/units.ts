@@ -1,0 +1,102 @@
+import { computed, type ComputedRef } from 'vue'
+import {
+  areaMm2ToAwg,
+  awgToAreaMm2,
+  celsiusToFahrenheit,
+  fahrenheitToCelsius,
+  feetToMetres,
+  metresToFeet,
+} from '../../../shared/units'
+import { usePreferencesStore } from '@/stores/preferences'
+import { formatNumber, withUnit } from './format'
+
+/** How one kind of quantity is shown: its unit, conversions from and to SI, and its rounding. */
+export interface DisplayQuantity {
+  unit: string
+  toDisplay: (si: number) => number
+  fromDisplay: (shown: number) => number
+  decimals: number
+}
+
+const identity = (value: number) => value
+
+const metres: DisplayQuantity = {
+  unit: 'm',
+  toDisplay: identity,
+  fromDisplay: identity,
+  decimals: 2,
+}
+const feet: DisplayQuantity = {
+  unit: 'ft',
+  toDisplay: metresToFeet,
+  fromDisplay: feetToMetres,
+  decimals: 1,
+}
+const celsius: DisplayQuantity = {
+  unit: '°C',
+  toDisplay: identity,
+  fromDisplay: identity,
+  decimals: 0,
+}
+const fahrenheit: DisplayQuantity = {
+  unit: '°F',
+  toDisplay: celsiusToFahrenheit,
+  fromDisplay: fahrenheitToCelsius,
+  decimals: 0,
+}
+
+/** SI prefixes for small quantities that datasheets print in milli-units. */
+export const milliOhm: DisplayQuantity = {
+  unit: 'mΩ',
+  toDisplay: (ohm) => ohm * 1000,
+  fromDisplay: (milli) => milli / 1000,
+  decimals: 1,
+}
+/** Efficiencies are fractions in the engine and percentages on screen. */
+export const percentOfOne: DisplayQuantity = {
+  unit: '%',
+  toDisplay: (fraction) => fraction * 100,
+  fromDisplay: (percent) => percent / 100,
+  decimals: 0,
+}
+
+/** The AWG name of a gauge: 0 is "1/0", −1 is "2/0" (ASTM B258 numbering). */
+export function awgName(awg: number): string {
+  const whole = Math.round(awg)
+  if (Math.abs(awg - whole) > 0.05) return `${formatNumber(awg, 1)} AWG`
+  return whole <= 0 ? `${1 - whole}/0 AWG` : `${whole} AWG`
+}
+
+/** Both names of a lead's wire size, the unit system's own first. */
+export function wireSizeText(
+  size: { awg?: number | undefined; areaMm2?: number | undefined },
+  imperial: boolean,
+): string {
+  const areaMm2 = size.areaMm2 ?? (size.awg !== undefined ? awgToAreaMm2(size.awg) : undefined)
+  const awg = size.awg ?? (size.areaMm2 !== undefined ? areaMm2ToAwg(size.areaMm2) : undefined)
+  if (areaMm2 === undefined || awg === undefined) return ''
+  const mm2 = withUnit(formatNumber(areaMm2, areaMm2 < 1 ? 2 : 1), 'mm²')
+  return imperial ? `${awgName(awg)} (${mm2})` : `${mm2} (${awgName(awg)})`
+}
+
+export interface DisplayUnits {
+  imperial: ComputedRef<boolean>
+  length: ComputedRef<DisplayQuantity>
+  temperature: ComputedRef<DisplayQuantity>
+}
+
+/** The display units chosen in the header's metric/imperial switch. */
+export function useDisplayUnits(): DisplayUnits {
+  const preferences = usePreferencesStore()
+  const imperial = computed(() => preferences.units === 'imperial')
+  return {
+    imperial,
+    length: computed(() => (imperial.value ? feet : metres)),
+    temperature: computed(() => (imperial.value ? fahrenheit : celsius)),
+  }
+}
+
+/** An SI value shown in a display quantity, rounded, with its unit. */
+export function showQuantity(si: number, quantity: DisplayQuantity): string {
+  return withUnit(formatNumber(quantity.toDisplay(si), quantity.decimals), quantity.unit)
+}

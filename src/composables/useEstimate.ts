@@ -1,0 +1,77 @@
+import { computed, effectScope, type ComputedRef } from 'vue'
+import { estimate } from '../../shared/engine'
+import type { EstimateRequest, EstimateResult } from '../../shared/schemas/estimate'
+import { useRigDraftStore } from '@/stores/rigDraft'
+
+export interface EstimateState {
+  /** The latest result; while the draft is invalid, the last valid rig's result (see `stale`). */
+  result: ComputedRef<EstimateResult | null>
+  /** The validated request the result belongs to. */
+  request: ComputedRef<EstimateRequest | null>
+  /** True while the shown result belongs to an earlier, valid version of the draft. */
+  stale: ComputedRef<boolean>
+  /** Field path (`pack.seriesCells`, `accessories.0.powerW`) → the schema's message for it. */
+  fieldIssues: ComputedRef<ReadonlyMap<string, string>>
+  /** Every message, for a summary above the results. */
+  issueMessages: ComputedRef<readonly string[]>
+  /** Set when the engine itself failed on input that passed the schema (a bug to report). */
+  engineError: ComputedRef<string | null>
+}
+
+type RigDraftStore = ReturnType<typeof useRigDraftStore>
+
+// One state per store, shared by every component that asks: the engine runs once per change of
+// the draft, however many panels read the result.
+const states = new WeakMap<RigDraftStore, EstimateState>()
+
+function createState(store: RigDraftStore): EstimateState {
+  // Detached: the state lives as long as the store, not as long as the first component using it.
+  const scope = effectScope(true)
+  return scope.run(() => {
+    let last: { request: EstimateRequest; result: EstimateResult } | null = null
+    const outcome = computed(() => {
+      const validation = store.validation
+      if (!validation.success) return { ...last, stale: last !== null, error: null }
+      try {
+        last = { request: validation.data, result: estimate(validation.data) }
+        return { ...last, stale: false, error: null }
+      } catch (error) {
+        return {
+          ...last,
+          stale: last !== null,
+          error: error instanceof Error ? error.message : String(error),
+        }
+      }
+    })
+    const fieldIssues = computed(() => {
+      const issues = new Map<string, string>()
+      const validation = store.validation
+      if (validation.success) return issues
+      for (const issue of validation.error.issues) {
+        const path = issue.path.map(String).join('.')
+        // The first message for a field is the one to fix first.
+        if (!issues.has(path)) issues.set(path, issue.message)
+      }
+      return issues
+    })
+    return {
+      result: computed(() => outcome.value.result ?? null),
+      request: computed(() => outcome.value.request ?? null),
+      stale: computed(() => outcome.value.stale),
+      fieldIssues,
+      issueMessages: computed(() => [...fieldIssues.value.values()]),
+      engineError: computed(() => outcome.value.error),
+    }
+  })!
+}
+
+/** The live estimate of the rig on the bench, computed in the browser (no round trip). */
+export function useEstimate(): EstimateState {
+  const store = useRigDraftStore()
+  let state = states.get(store)
+  if (!state) {
+    state = createState(store)
+    states.set(store, state)
+  }
+  return state
+}

@@ -1,0 +1,57 @@
+import { beforeEach, describe, expect, it, vi } from 'vitest'
+import { useRigDraftStore } from '@/stores/rigDraft'
+import { flushPromises } from '@vue/test-utils'
+import { benchTestTimeoutMs, mountBench, typeInto } from './bench-helpers'
+
+// Counts engine runs while the whole bench (a dozen panels reading the result) is on screen.
+const engine = vi.hoisted(() => ({ runs: 0 }))
+vi.mock('../../shared/engine', async (importOriginal) => {
+  const original = await importOriginal<typeof import('../../shared/engine')>()
+  return {
+    ...original,
+    estimate: (...args: Parameters<typeof original.estimate>) => {
+      engine.runs++
+      return original.estimate(...args)
+    },
+  }
+})
+
+beforeEach(() => localStorage.clear())
+
+describe('the live estimate', { timeout: benchTestTimeoutMs }, () => {
+  it('runs the engine once per change, however many panels show the result', async () => {
+    const wrapper = await mountBench()
+    expect(engine.runs).toBe(1)
+    await typeInto(wrapper, 'programme.peakBelowClipDb', '4')
+    expect(engine.runs).toBe(2)
+    await typeInto(wrapper, 'pack.count', '3')
+    expect(engine.runs).toBe(3)
+    wrapper.unmount()
+  })
+
+  it('does not run the engine on a draft the schema refuses', async () => {
+    const wrapper = await mountBench()
+    const runsBefore = engine.runs
+    useRigDraftStore().draft.pack.parallelCells = 0
+    await flushPromises()
+    expect(engine.runs).toBe(runsBefore)
+    wrapper.unmount()
+  })
+
+  it('shows the runtime with its stop reason, and updates it when the level changes', async () => {
+    const wrapper = await mountBench()
+    const before = wrapper.get('[data-testid="runtime"]').text()
+    expect(wrapper.get('[data-testid="stop-reason"]').text().length).toBeGreaterThan(10)
+    // 10 dB further below clipping is a tenth of the average power: the rig must run longer.
+    await typeInto(wrapper, 'programme.peakBelowClipDb', '12')
+    const after = wrapper.get('[data-testid="runtime"]').text()
+    expect(after).not.toBe(before)
+    // The charts arrive in their own chunk.
+    const chart = await vi.waitFor(() => wrapper.get('[data-testid="chart-discharge"]'))
+    const points = JSON.parse(chart.attributes('data-points')!) as {
+      datasets: { data: { x: number }[] }[]
+    }
+    expect(points.datasets[0]!.data.length).toBeGreaterThan(10)
+    wrapper.unmount()
+  })
+})

@@ -1,0 +1,124 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest'
+import type { Page } from 'playwright-core'
+import { openBrowser, seriousAxeViolations, type BrowserSession } from '../helpers/browser'
+import { startServer, type RunningServer } from '../helpers/e2e-server'
+
+let server: RunningServer
+let browser: BrowserSession
+
+beforeAll(async () => {
+  server = await startServer()
+  browser = await openBrowser()
+})
+afterAll(async () => {
+  await browser?.close()
+  await server?.stop()
+})
+
+const runtime = (page: Page) => page.getByTestId('runtime').innerText()
+const dischargeChart = (page: Page) => page.getByTestId('chart-discharge')
+
+/** The chart's text alternative and its pixels: both must change when the curve does. */
+async function chartState(page: Page): Promise<{ label: string; pixels: string }> {
+  // Charts load as their panel nears the screen.
+  await page.getByTestId('discharge').scrollIntoViewIfNeeded()
+  const chart = dischargeChart(page)
+  await chart.waitFor()
+  return {
+    label: (await chart.getAttribute('aria-label')) ?? '',
+    pixels: await chart.evaluate((canvas: HTMLCanvasElement) => canvas.toDataURL()),
+  }
+}
+
+async function waitForChange(read: () => Promise<string>, before: string): Promise<string> {
+  for (let attempt = 0; attempt < 50; attempt++) {
+    const now = await read()
+    if (now !== before) return now
+    await new Promise((resolve) => setTimeout(resolve, 100))
+  }
+  return read()
+}
+
+describe('the rig bench in Chromium', () => {
+  it('composes a rig from the library and follows a level change in the runtime and chart', async () => {
+    const { page } = browser
+    await page.goto(`${server.url}/`)
+    await page.getByRole('heading', { name: 'Rig bench' }).waitFor()
+    await page.getByTestId('runtime').waitFor()
+
+    // Parts from the library: a smaller pack makes the same rig run for less time.
+    const startRuntime = await runtime(page)
+    await page.getByLabel('Pack from the library').selectOption('li-ion-5s-4ah')
+    const smallPackRuntime = await waitForChange(() => runtime(page), startRuntime)
+    expect(smallPackRuntime).not.toBe(startRuntime)
+    expect(await page.getByLabel('Cells in series').inputValue()).toBe('5')
+    await page.getByLabel('Amplifier from the library').selectOption('amp-d-mono-100w')
+    await page.getByLabel('Arrangement from the library').selectOption('spk-2x-8ohm-parallel')
+    await expect.poll(() => page.getByLabel('Channels').inputValue()).toBe('1')
+
+    // The level: 6 dB further below clipping is a quarter of the average power.
+    const chartBefore = await chartState(page)
+    const runtimeBefore = await runtime(page)
+    const level = page.getByLabel('Level: peaks below clipping')
+    await level.fill('8')
+    await level.press('Tab')
+    const runtimeAfter = await waitForChange(() => runtime(page), runtimeBefore)
+    expect(runtimeAfter).not.toBe(runtimeBefore)
+    const labelAfter = await waitForChange(
+      async () => (await chartState(page)).label,
+      chartBefore.label,
+    )
+    expect(labelAfter).not.toBe(chartBefore.label)
+    expect((await chartState(page)).pixels).not.toBe(chartBefore.pixels)
+    // The same numbers sit in a table beside the chart.
+    expect(await page.getByTestId('table-discharge').locator('tbody tr').count()).toBeGreaterThan(3)
+    await browser.screenshot('bench-after-level-change')
+  })
+
+  it('refuses a bad rig file with a message and keeps the rig', async () => {
+    const { page } = browser
+    const before = await runtime(page)
+    const levelBefore = await page.getByLabel('Level: peaks below clipping').inputValue()
+    await page.getByTestId('import-input').setInputFiles({
+      name: 'shopping-list.json',
+      mimeType: 'application/json',
+      buffer: Buffer.from(JSON.stringify({ items: ['bread', 'milk'] })),
+    })
+    const message = page.getByTestId('file-message')
+    await message.waitFor()
+    expect(await message.innerText()).toContain('not a Loudhour rig file')
+    expect(await message.getAttribute('role')).toBe('alert')
+    expect(await runtime(page)).toBe(before)
+    expect(await page.getByLabel('Level: peaks below clipping').inputValue()).toBe(levelBefore)
+  })
+
+  it('keeps the rig across a reload', async () => {
+    const { page } = browser
+    const level = await page.getByLabel('Level: peaks below clipping').inputValue()
+    await page.reload()
+    await page.getByTestId('runtime').waitFor()
+    expect(await page.getByLabel('Level: peaks below clipping').inputValue()).toBe(level)
+  })
+
+  it('has no console errors and no serious accessibility violations, light and dark', async () => {
+    const { page } = browser
+    await page.goto(`${server.url}/`)
+    await page.getByTestId('runtime').waitFor()
+    for (const panel of ['power-budget', 'discharge', 'headroom']) {
+      await page.getByTestId(panel).scrollIntoViewIfNeeded()
+    }
+    await page.getByTestId('chart-headroom').waitFor()
+    expect(await seriousAxeViolations(page)).toEqual([])
+    await browser.screenshot('bench-light')
+    await page.getByRole('button', { name: 'Dark mode' }).click()
+    await page.getByRole('button', { name: 'Light mode' }).waitFor()
+    expect(await seriousAxeViolations(page)).toEqual([])
+    await browser.screenshot('bench-dark')
+    await page.setViewportSize({ width: 390, height: 844 })
+    await page.evaluate(() => window.scrollTo(0, 0))
+    expect(await seriousAxeViolations(page)).toEqual([])
+    await browser.screenshot('bench-phone')
+    await page.getByRole('button', { name: 'Light mode' }).click()
+    expect(browser.consoleErrors).toEqual([])
+  })
+})
