@@ -1,0 +1,28 @@
+import type { MailMessage } from '../mail/message'
+import type { RuntimeCard } from '../../shared/card/model'
+import { cardHtml } from './render-html'
+import { cardText } from './render-text'
+
+/** One crew member's copy of a plan's card, with the read-only link to it. */
+export function cardMail(input: {
+  to: string
+  teamId: number
+  senderName: string
+  card: RuntimeCard
+  shareUrl: string
+}): MailMessage {
+  const { card, shareUrl } = input
+  const intro = `${input.senderName} sent you the runtime card for "${card.title}" from Loudhour.`
+  return {
+    to: input.to,
+    // The team's admins may read it in the local mail catcher: it holds nothing they cannot see.
+    shownToAdminsOf: [input.teamId],
+    // A name is one line of text, but a header must never be split by one that is not.
+    subject: `Runtime card: ${card.title}${card.dateLabel ? `, ${card.dateLabel}` : ''}`.replace(
+      /[\r\n]+/g,
+      ' ',
+    ),
+    text: cardText(card, shareUrl, intro),
+    html: cardHtml(card, shareUrl, intro),
+  }
+}
