@@ -1,5 +1,6 @@
 import Papa from 'papaparse'
 import type { DischargeSample } from '../../shared/discharge/analyse'
+import { columnRules, type ColumnRule, type LogQuantity } from '../../shared/discharge/columns'
 import { ApiError } from '../http/errors'
 
 /**
@@ -9,44 +10,6 @@ import { ApiError } from '../http/errors'
  * `current_a` / `current_ma`, or else `power_w` / `power_mw` (I = P / V), or else a running
  * capacity `capacity_ah` / `capacity_mah` (I = ΔQ / Δt).
  */
-
-type Quantity = 'time' | 'voltage' | 'current' | 'power' | 'capacity'
-interface ColumnRule {
-  quantity: Quantity
-  /** Multiplies the cell's number into SI (s, V, A, W, Ah); `clock` allows hh:mm:ss. */
-  toSi: number
-  clock?: boolean
-}
-
-// Header names after normalising (lower case, brackets and spaces to underscores).
-const columnRules: Record<string, ColumnRule> = {
-  time: { quantity: 'time', toSi: 1, clock: true },
-  time_s: { quantity: 'time', toSi: 1 },
-  time_sec: { quantity: 'time', toSi: 1 },
-  seconds: { quantity: 'time', toSi: 1 },
-  elapsed_s: { quantity: 'time', toSi: 1 },
-  time_ms: { quantity: 'time', toSi: 1e-3 },
-  time_min: { quantity: 'time', toSi: 60 },
-  time_h: { quantity: 'time', toSi: 3600 },
-  time_hms: { quantity: 'time', toSi: 1, clock: true },
-  voltage: { quantity: 'voltage', toSi: 1 },
-  voltage_v: { quantity: 'voltage', toSi: 1 },
-  volts: { quantity: 'voltage', toSi: 1 },
-  voltage_mv: { quantity: 'voltage', toSi: 1e-3 },
-  current: { quantity: 'current', toSi: 1 },
-  current_a: { quantity: 'current', toSi: 1 },
-  amps: { quantity: 'current', toSi: 1 },
-  current_ma: { quantity: 'current', toSi: 1e-3 },
-  power: { quantity: 'power', toSi: 1 },
-  power_w: { quantity: 'power', toSi: 1 },
-  watts: { quantity: 'power', toSi: 1 },
-  power_mw: { quantity: 'power', toSi: 1e-3 },
-  capacity_ah: { quantity: 'capacity', toSi: 1 },
-  charge_ah: { quantity: 'capacity', toSi: 1 },
-  capacity_mah: { quantity: 'capacity', toSi: 1e-3 },
-  charge_mah: { quantity: 'capacity', toSi: 1e-3 },
-  mah: { quantity: 'capacity', toSi: 1e-3 },
-}
 
 export const maximumLogRows = 200_000
 
@@ -95,17 +58,69 @@ function parseClock(cell: string): number | undefined {
     : Number(first) * 3600 + Number(second) * 60 + Number(third)
 }
 
-function parseNumber(cell: string): number | undefined {
+function parseNumber(cell: string, decimalComma: boolean): number | undefined {
+  // A log written with ";" or tab between cells may use the decimal comma (4,05 for 4.05).
+  const plain = decimalComma && /^[+-]?\d+,\d+$/.test(cell) ? cell.replace(',', '.') : cell
   // Only plain decimal numbers: a cell like "=1+2" or "@SUM(A1)" is refused, never evaluated.
-  if (!/^[+-]?(\d+(\.\d*)?|\.\d+)([eE][+-]?\d+)?$/.test(cell)) return undefined
-  const value = Number(cell)
+  if (!/^[+-]?(\d+(\.\d*)?|\.\d+)([eE][+-]?\d+)?$/.test(plain)) return undefined
+  const value = Number(plain)
   return Number.isFinite(value) ? value : undefined
 }
 
+/** The file's bytes as text: UTF-8, or UTF-16 when it starts with that byte-order mark. */
+export function decodeLogBytes(bytes: Uint8Array): string {
+  const encoding =
+    bytes[0] === 0xff && bytes[1] === 0xfe
+      ? 'utf-16le'
+      : bytes[0] === 0xfe && bytes[1] === 0xff
+        ? 'utf-16be'
+        : 'utf-8'
+  return new TextDecoder(encoding).decode(bytes)
+}
+
+type Column = { index: number; rule: ColumnRule; name: string }
+
+function columnsOf(header: readonly string[]): Map<LogQuantity, Column> {
+  const columns = new Map<LogQuantity, Column>()
+  header.forEach((raw, index) => {
+    const rule = columnRules[normaliseHeader(raw)]
+    if (rule && !columns.has(rule.quantity))
+      columns.set(rule.quantity, { index, rule, name: raw.trim() })
+  })
+  return columns
+}
+
+const isBlank = (row: readonly string[]) => row.every((cell) => cell.trim() === '')
+
+// Testers often write a few lines about the device and the run above the header.
+const maximumPreambleRows = 30
+
 export function parseDischargeCsv(text: string): DischargeSample[] {
   assertLooksLikeText(text)
-  const parsed = Papa.parse<string[]>(text.trim(), { skipEmptyLines: 'greedy' })
-  const [header, ...rows] = parsed.data
+  if (text.trim() === '')
+    throw invalid('The file is empty: upload a CSV with a header row and samples.')
+  // Blank lines are kept while parsing so that a record's index is its line in the file.
+  const parsed = Papa.parse<string[]>(text, { skipEmptyLines: false })
+  const records = parsed.data
+  const decimalComma = parsed.meta.delimiter !== ','
+  const firstFilled = records.findIndex((row) => !isBlank(row))
+  let headerIndex = firstFilled
+  for (
+    let index = firstFilled;
+    index >= 0 && index < firstFilled + maximumPreambleRows;
+    index += 1
+  ) {
+    const found = columnsOf(records[index] ?? [])
+    if (found.has('time') && found.has('voltage')) {
+      headerIndex = index
+      break
+    }
+  }
+  const header = records[headerIndex]
+  const rows = records
+    .map((row, index) => ({ row, rowNumber: index + 1 }))
+    .slice(headerIndex + 1)
+    .filter(({ row }) => !isBlank(row))
   if (!header || rows.length === 0) {
     throw invalid('The log needs a header row and at least two samples.')
   }
@@ -115,13 +130,7 @@ export function parseDischargeCsv(text: string): DischargeSample[] {
     )
   }
 
-  const columns = new Map<Quantity, { index: number; rule: ColumnRule; name: string }>()
-  header.forEach((raw, index) => {
-    const name = normaliseHeader(raw)
-    const rule = columnRules[name]
-    if (rule && !columns.has(rule.quantity))
-      columns.set(rule.quantity, { index, rule, name: raw.trim() })
-  })
+  const columns = columnsOf(header)
   const time = columns.get('time')
   const voltage = columns.get('voltage')
   const flow = columns.get('current') ?? columns.get('power') ?? columns.get('capacity')
@@ -137,13 +146,10 @@ export function parseDischargeCsv(text: string): DischargeSample[] {
   }
   if (rows.length < 2) throw invalid('The log needs at least two samples.')
 
-  const read = (
-    row: string[],
-    rowNumber: number,
-    column: { index: number; rule: ColumnRule; name: string },
-  ) => {
+  const read = (row: string[], rowNumber: number, column: Column) => {
     const cell = (row[column.index] ?? '').trim()
-    const value = parseNumber(cell) ?? (column.rule.clock ? parseClock(cell) : undefined)
+    const value =
+      parseNumber(cell, decimalComma) ?? (column.rule.clock ? parseClock(cell) : undefined)
     if (value === undefined) {
       const shown = cell.length > 24 ? `${cell.slice(0, 24)}…` : cell
       throw invalid(`Row ${rowNumber}, column ${column.name}: "${shown}" is not a number.`)
@@ -153,16 +159,19 @@ export function parseDischargeCsv(text: string): DischargeSample[] {
 
   const samples: DischargeSample[] = []
   let previousCapacityAh = 0
-  rows.forEach((row, offset) => {
-    const rowNumber = offset + 2 // the header is row 1
+  for (const { row, rowNumber } of rows) {
     const timeS = read(row, rowNumber, time)
     const voltageV = read(row, rowNumber, voltage)
     const flowValue = Math.abs(read(row, rowNumber, flow))
     const previous = samples[samples.length - 1]
     if (previous && timeS < previous.timeS) {
-      throw invalid(`Row ${rowNumber}: time goes backwards (${timeS} s after ${previous.timeS} s).`)
+      throw invalid(
+        `Row ${rowNumber}, column ${time.name}: time goes backwards (${timeS} s after ${previous.timeS} s).`,
+      )
     }
-    if (voltageV <= 0) throw invalid(`Row ${rowNumber}: the voltage must be above zero.`)
+    if (voltageV <= 0) {
+      throw invalid(`Row ${rowNumber}, column ${voltage.name}: the voltage must be above zero.`)
+    }
     let currentA: number
     switch (flow.rule.quantity) {
       case 'current':
@@ -178,7 +187,7 @@ export function parseDischargeCsv(text: string): DischargeSample[] {
       }
     }
     samples.push({ timeS, voltageV, currentA })
-  })
+  }
   // A running capacity gives the current of each interval at its end; the first sample takes
   // the second's so that the trapezoids do not start from an invented zero.
   if (flow.rule.quantity === 'capacity' && samples.length > 1)

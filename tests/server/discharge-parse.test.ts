@@ -1,5 +1,9 @@
 import { describe, expect, it } from 'vitest'
-import { normaliseHeader, parseDischargeCsv } from '../../server/discharge/parse-log'
+import {
+  decodeLogBytes,
+  normaliseHeader,
+  parseDischargeCsv,
+} from '../../server/discharge/parse-log'
 import { ApiError } from '../../server/http/errors'
 
 function expectRefusal(text: string, status: number, pattern: RegExp) {
@@ -55,7 +59,38 @@ describe('discharge log columns', () => {
   })
 })
 
+describe('logs as testers write them', () => {
+  it('finds the header below a few lines about the device and the run', () => {
+    const samples = parseDischargeCsv(
+      'Logger export\nStarted,2026-05-01 09:00\n\ntime_s,voltage_v,current_a\n0,12,1\n5,11.9,1\n',
+    )
+    expect(samples).toEqual([
+      { timeS: 0, voltageV: 12, currentA: 1 },
+      { timeS: 5, voltageV: 11.9, currentA: 1 },
+    ])
+  })
+
+  it('reads decimal commas when cells are separated by semicolons', () => {
+    // common practice: spreadsheets in decimal-comma locales separate CSV cells with ";".
+    const samples = parseDischargeCsv('time_s;voltage_v;current_a\n0;12,55;1,5\n1;12,5;1,5\n')
+    expect(samples[0]).toEqual({ timeS: 0, voltageV: 12.55, currentA: 1.5 })
+  })
+
+  it('decodes UTF-16 text with a byte-order mark', () => {
+    // Source: The Unicode Standard, ch. 23.8: U+FEFF written as FF FE marks UTF-16 little-endian.
+    const text = '\uFEFFtime_s,voltage_v,current_a\n0,12,1\n'
+    const bytes = new Uint8Array([0xff, 0xfe, ...Buffer.from(text.slice(1), 'utf16le')])
+    expect(decodeLogBytes(bytes)).toBe(text.slice(1))
+  })
+})
+
 describe('refusals that name what is wrong', () => {
+  it('names the row as the line of the file, blank lines counted', () =>
+    expectRefusal(
+      'time_s,voltage_v,current_a\n0,12,1\n\n\n5,12,x\n',
+      400,
+      /Row 5, column current_a: "x" is not a number/,
+    ))
   it('refuses an empty file', () => expectRefusal('', 400, /empty/))
   it('refuses binary junk with 415', () =>
     expectRefusal('\u0000\u0001\u0002PK\u0003\u0004\u0000\u0000', 415, /not a text CSV/))

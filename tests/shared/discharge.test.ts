@@ -4,31 +4,18 @@ import {
   maxStoredPoints,
   type DischargeSample,
 } from '../../shared/discharge/analyse'
-
-function constantCurrentLog(options: {
-  currentA: number
-  hours: number
-  startV: number
-  endV: number
-  stepS: number
-}) {
-  const samples: DischargeSample[] = []
-  const totalS = options.hours * 3600
-  for (let timeS = 0; timeS <= totalS; timeS += options.stepS) {
-    const fraction = timeS / totalS
-    samples.push({
-      timeS,
-      voltageV: options.startV + (options.endV - options.startV) * fraction,
-      currentA: options.currentA,
-    })
-  }
-  return samples
-}
+import { constantCurrentSamples } from '../helpers/discharge-logs'
 
 describe('delivered charge and energy', () => {
   it('gives Ah = I × t exactly for a constant current', () => {
     // Source: definition of the ampere-hour (1 Ah = 3600 C); the trapezoid rule is exact for a constant.
-    const log = constantCurrentLog({ currentA: 2, hours: 2.5, startV: 12.8, endV: 12.0, stepS: 30 })
+    const log = constantCurrentSamples({
+      currentA: 2,
+      hours: 2.5,
+      startV: 12.8,
+      endV: 12.0,
+      stepS: 30,
+    })
     const result = analyseDischarge(log, { cutoffV: 10.5, ratedAh: 7 })
     expect(result.deliveredAh).toBeCloseTo(5, 10)
     expect(result.reachedCutoff).toBe(false)
@@ -37,7 +24,7 @@ describe('delivered charge and energy', () => {
 
   it('gives Wh = I × mean V × t for a linear voltage fall', () => {
     // Source: trapezoid rule, exact for a linear integrand (any numerical analysis text).
-    const log = constantCurrentLog({ currentA: 1, hours: 1, startV: 4.2, endV: 3.4, stepS: 10 })
+    const log = constantCurrentSamples({ currentA: 1, hours: 1, startV: 4.2, endV: 3.4, stepS: 10 })
     const result = analyseDischarge(log, { cutoffV: 3.0, ratedAh: 1 })
     expect(result.deliveredWh).toBeCloseTo(1 * 3.8 * 1, 8)
   })
@@ -45,7 +32,7 @@ describe('delivered charge and energy', () => {
   it('stops counting at the cutoff crossing, interpolated between samples', () => {
     // 2 A for 1 h from 13 V to 11 V; cutoff 12 V is crossed halfway: 1 Ah delivered.
     // Source: linear interpolation of the crossing time; Ah = I × t.
-    const log = constantCurrentLog({ currentA: 2, hours: 1, startV: 13, endV: 11, stepS: 60 })
+    const log = constantCurrentSamples({ currentA: 2, hours: 1, startV: 13, endV: 11, stepS: 60 })
     const result = analyseDischarge(log, { cutoffV: 12, ratedAh: 2 })
     expect(result.reachedCutoff).toBe(true)
     expect(result.deliveredAh).toBeCloseTo(1, 6)
@@ -72,7 +59,13 @@ describe('internal resistance from load steps', () => {
   })
 
   it('gives no resistance for a log without load steps', () => {
-    const log = constantCurrentLog({ currentA: 3, hours: 1, startV: 12.7, endV: 12.1, stepS: 30 })
+    const log = constantCurrentSamples({
+      currentA: 3,
+      hours: 1,
+      startV: 12.7,
+      endV: 12.1,
+      stepS: 30,
+    })
     const result = analyseDischarge(log, { cutoffV: 10.5, ratedAh: 7 })
     expect(result.resistanceOhm).toBeUndefined()
     expect(result.resistanceSteps).toBe(0)
@@ -81,7 +74,7 @@ describe('internal resistance from load steps', () => {
 
 describe('stored points', () => {
   it('keeps at most the stored number of points, first and last included', () => {
-    const log = constantCurrentLog({ currentA: 1, hours: 3, startV: 4.1, endV: 3.5, stepS: 1 })
+    const log = constantCurrentSamples({ currentA: 1, hours: 3, startV: 4.1, endV: 3.5, stepS: 1 })
     const result = analyseDischarge(log, { cutoffV: 3, ratedAh: 3 })
     expect(result.points.length).toBe(maxStoredPoints)
     expect(result.points[0]!.minute).toBe(0)

@@ -1,0 +1,90 @@
+// The pack model under a constant current, for drawing beside a measured discharge log, and the
+// limits a log is read against. Uses the same pack model as the estimate (pack.ts, engine.md §1).
+import type { PackSpec } from '../schemas/estimate'
+import { CHEMISTRY_DATA, defaultCellResistanceOhm } from './chemistry'
+import { buildPack, packOpenCircuitV, peukertChargeRateA, type PackInputs } from './pack'
+import { DEFAULT_HEALTH_PCT, DEFAULT_TEMPERATURE_C } from './resolve'
+
+export interface ModelDischargePoint {
+  minute: number
+  voltageV: number
+  deliveredAh: number
+}
+
+export interface ModelDischarge {
+  points: ModelDischargePoint[]
+  deliveredAh: number
+  /** Why the model stops: the terminal voltage reached the cutoff, or the charge ran out first. */
+  stopReason: 'pack-cutoff' | 'pack-empty'
+}
+
+/** A saved pack's fields with the engine's defaults applied (as resolve.ts does for a rig). */
+export function packInputsOf(spec: PackSpec): PackInputs {
+  const chemistry = CHEMISTRY_DATA[spec.chemistry]
+  return {
+    chemistry: spec.chemistry,
+    seriesCells: spec.seriesCells,
+    parallelCells: spec.parallelCells,
+    cellCapacityAh: spec.cellCapacityAh,
+    cellResistanceOhm:
+      spec.cellResistanceOhm ?? defaultCellResistanceOhm(spec.chemistry, spec.cellCapacityAh),
+    cutoffCellV: spec.cutoffCellV ?? chemistry.cutoffCellV,
+    healthPct: spec.healthPct ?? DEFAULT_HEALTH_PCT,
+    peukertExponent: spec.peukertExponent ?? chemistry.peukertExponent,
+  }
+}
+
+/** What a log of this pack is measured against: cutoff = s × cutoff per cell, rated = p × cell Ah. */
+export function dischargeLimitsOf(spec: PackSpec): { cutoffV: number; ratedAh: number } {
+  const inputs = packInputsOf(spec)
+  return {
+    cutoffV: inputs.seriesCells * inputs.cutoffCellV,
+    ratedAh: inputs.parallelCells * inputs.cellCapacityAh,
+  }
+}
+
+// The pack's OCV table has one row per 1 % of charge and is linear between rows, so under a
+// constant current the terminal voltage is linear in time between these nodes: the curve and its
+// cutoff crossing are exact at this resolution.
+const socNodes = 100
+
+/**
+ * Terminal voltage V = OCV(state of charge) − I·R while a constant current I drains the pack;
+ * charge leaves at the Peukert rate (pack.ts). Stops at the cutoff or when the charge is gone.
+ */
+export function modelConstantCurrentDischarge(
+  spec: PackSpec,
+  currentA: number,
+  temperatureC = DEFAULT_TEMPERATURE_C,
+): ModelDischarge {
+  const pack = buildPack(packInputsOf(spec), temperatureC)
+  if (!(currentA > 0)) return { points: [], deliveredAh: 0, stopReason: 'pack-empty' }
+  const chargeRateA = peukertChargeRateA(currentA, pack.ratedCurrentA, pack.peukertExponent)
+  const emptyS = (pack.capacityAh * 3600) / chargeRateA
+  const sagV = currentA * pack.resistanceOhm
+  const at = (timeS: number, voltageV: number): ModelDischargePoint => ({
+    minute: timeS / 60,
+    voltageV,
+    deliveredAh: (currentA * timeS) / 3600,
+  })
+
+  const points: ModelDischargePoint[] = []
+  let previous = { timeS: 0, voltageV: packOpenCircuitV(pack, 1) - sagV }
+  if (previous.voltageV <= pack.cutoffV) {
+    return { points: [at(0, previous.voltageV)], deliveredAh: 0, stopReason: 'pack-cutoff' }
+  }
+  points.push(at(previous.timeS, previous.voltageV))
+  for (let node = 1; node <= socNodes; node += 1) {
+    const timeS = (emptyS * node) / socNodes
+    const voltageV = packOpenCircuitV(pack, 1 - node / socNodes) - sagV
+    if (voltageV <= pack.cutoffV) {
+      const fraction = (previous.voltageV - pack.cutoffV) / (previous.voltageV - voltageV)
+      const crossingS = previous.timeS + fraction * (timeS - previous.timeS)
+      points.push(at(crossingS, pack.cutoffV))
+      return { points, deliveredAh: (currentA * crossingS) / 3600, stopReason: 'pack-cutoff' }
+    }
+    points.push(at(timeS, voltageV))
+    previous = { timeS, voltageV }
+  }
+  return { points, deliveredAh: (currentA * emptyS) / 3600, stopReason: 'pack-empty' }
+}

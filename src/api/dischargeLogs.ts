@@ -1,0 +1,83 @@
+import type { PackItem } from '../../shared/schemas/resources'
+import {
+  DISCHARGE_LOG_FIELD,
+  type AcceptDischargeLogInput,
+  type DischargeLogDetail,
+  type DischargeLogSummary,
+} from '../../shared/discharge/log'
+import { ApiRequestError, apiRequest } from './http'
+
+// A saved pack's measured discharges (design/api.md, "Plans and packs").
+
+const base = (teamId: number, packId: number) =>
+  `/v1/teams/${teamId}/packs/${packId}/discharge-logs`
+
+export const listDischargeLogs = (teamId: number, packId: number) =>
+  apiRequest<{ items: DischargeLogSummary[]; total: number }>(base(teamId, packId))
+
+export const getDischargeLog = (teamId: number, packId: number, logId: number) =>
+  apiRequest<DischargeLogDetail>(`${base(teamId, packId)}/${logId}`)
+
+export const deleteDischargeLog = (teamId: number, packId: number, logId: number) =>
+  apiRequest<void>(`${base(teamId, packId)}/${logId}`, { method: 'DELETE' })
+
+export const acceptDischargeLog = (
+  teamId: number,
+  packId: number,
+  logId: number,
+  input: AcceptDischargeLogInput,
+) =>
+  apiRequest<{ pack: PackItem; log: DischargeLogDetail }>(
+    `${base(teamId, packId)}/${logId}/accept`,
+    {
+      method: 'POST',
+      body: input,
+    },
+  )
+
+function requestError(status: number, payload: unknown): ApiRequestError {
+  const error = (payload as { error?: { code?: string; message?: string } } | undefined)?.error
+  return new ApiRequestError(
+    status,
+    error?.code ?? `http-${status}`,
+    error?.message ?? `The server answered ${status}.`,
+  )
+}
+
+/**
+ * Uploads a log file; `onProgress` gets the fraction sent (0..1). XMLHttpRequest rather than
+ * fetch because only it reports upload progress in every current browser.
+ */
+export function uploadDischargeLog(
+  teamId: number,
+  packId: number,
+  file: File,
+  onProgress: (fraction: number) => void,
+): Promise<DischargeLogDetail> {
+  const form = new FormData()
+  form.append(DISCHARGE_LOG_FIELD, file, file.name)
+  return new Promise((resolve, reject) => {
+    const xhr = new XMLHttpRequest()
+    xhr.open('POST', `/api${base(teamId, packId)}`)
+    xhr.responseType = 'json'
+    xhr.upload.addEventListener('progress', (event) => {
+      if (event.lengthComputable) onProgress(event.loaded / event.total)
+    })
+    xhr.addEventListener('load', () => {
+      if (xhr.status === 201) {
+        onProgress(1)
+        resolve(xhr.response as DischargeLogDetail)
+      } else reject(requestError(xhr.status, xhr.response))
+    })
+    xhr.addEventListener('error', () =>
+      reject(
+        new ApiRequestError(
+          0,
+          'offline',
+          'The server could not be reached. Check the connection and try again.',
+        ),
+      ),
+    )
+    xhr.send(form)
+  })
+}
