@@ -3,8 +3,13 @@ import { join, resolve } from 'node:path'
 import { createApp } from './app'
 import { openDatabase } from './db/client'
 import { runMigrations, migrationStatus } from './db/migrate'
+import { recomputeSummaries } from './db/recompute-summaries'
 import { readEnv } from './env'
 import { resolveSessionSecret } from './secret'
+import { createMailer } from './mail/mailer'
+import { preparePasswordChecks } from './auth/passwords'
+import { demoSignIns, seedDemo } from './db/seed'
+import { systemClock } from './clock'
 
 const env = readEnv()
 const dataDir = resolve(env.LOUDHOUR_DATA_DIR)
@@ -14,8 +19,20 @@ const sessionSecret = resolveSessionSecret(dataDir, env.SESSION_SECRET)
 const database = openDatabase(join(dataDir, 'loudhour.db'))
 runMigrations(database)
 const migrations = migrationStatus(database)
+// Stored rig and plan summaries follow the engine: recomputed when its version changed.
+const recomputed = recomputeSummaries(database)
 
-const app = createApp({ env, database, sessionSecret })
+const mail = createMailer({
+  smtpUrl: env.SMTP_URL,
+  from: env.MAIL_FROM,
+  clock: systemClock,
+  log: (error) => console.error('Mail could not be sent:', error),
+})
+const mailCatcherPort = await mail.start()
+const seeded = env.LOUDHOUR_DEMO ? await seedDemo(database, Date.now()) : false
+await preparePasswordChecks()
+
+const app = createApp({ env, database, sessionSecret, mail })
 const server = app.listen(env.PORT, env.HOST, (error?: Error) => {
   if (error) {
     console.error(`Loudhour could not listen on ${env.HOST}:${env.PORT}: ${error.message}`)
@@ -23,6 +40,25 @@ const server = app.listen(env.PORT, env.HOST, (error?: Error) => {
   }
   console.log(`Loudhour is running at ${env.PUBLIC_URL}`)
   console.log(`  data: ${dataDir} (migrations applied: ${migrations.applied})`)
+  if (recomputed && (recomputed.rigs > 0 || recomputed.plans > 0)) {
+    console.log(
+      `  engine ${recomputed.toVersion}: recomputed ${recomputed.rigs} rig and ${recomputed.plans} plan summaries (${recomputed.invalid} no longer valid)`,
+    )
+  }
+  if (mailCatcherPort !== undefined) {
+    console.log(
+      `  mail: no SMTP_URL, so messages stay in the local catcher (127.0.0.1:${mailCatcherPort});`,
+    )
+    console.log(`        team admins read them at ${env.PUBLIC_URL}/outbox`)
+  }
+  if (env.LOUDHOUR_DEMO) {
+    console.log(
+      seeded ? '  demo data seeded; sign in as:' : '  demo sign-ins (unless changed since):',
+    )
+    for (const signIn of demoSignIns()) {
+      console.log(`    ${signIn.email}  ${signIn.password}  ${signIn.teams}`)
+    }
+  }
 })
 
 let stopping = false
@@ -31,8 +67,10 @@ function shutdown(signal: string): void {
   stopping = true
   console.log(`${signal} received: closing connections`)
   server.close(() => {
-    database.sqlite.close()
-    process.exit(0)
+    void mail.close().finally(() => {
+      database.sqlite.close()
+      process.exit(0)
+    })
   })
   server.closeAllConnections()
   // A stuck socket must not keep the process alive for ever.

@@ -30,7 +30,8 @@ describe('the app shell in Chromium', () => {
     await page.goto(`${server.url}/plans/123`)
     await page.getByRole('navigation', { name: 'Main' }).waitFor()
     await page.getByRole('link', { name: 'Parts' }).click()
-    await page.waitForURL(`${server.url}/parts`)
+    // The team's parts need a member: a guest is sent to sign-in and back.
+    await page.waitForURL(/\/sign-in\?redirect=(%2F|\/)parts$/)
     expect(await page.title()).toContain('Loudhour')
   })
 
