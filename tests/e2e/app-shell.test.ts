@@ -1,22 +1,12 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import { openBrowser, seriousAxeViolations, type BrowserSession } from '../helpers/browser'
-import { startServer, type RunningServer } from '../helpers/e2e-server'
+import { describe, expect, it } from 'vitest'
+import { seriousAxeViolations } from '../helpers/browser'
+import { useAppUnderTest } from '../helpers/e2e-app'
 
-let server: RunningServer
-let browser: BrowserSession
-
-beforeAll(async () => {
-  server = await startServer()
-  browser = await openBrowser()
-})
-afterAll(async () => {
-  await browser?.close()
-  await server?.stop()
-})
+const app = useAppUnderTest()
 
 describe('the app shell in Chromium', () => {
   it('reports migrations applied at /api/health', async () => {
-    const response = await browser.page.request.get(`${server.url}/api/health`)
+    const response = await app.browser.page.request.get(`${app.server.url}/api/health`)
     const health = await response.json()
     expect(health.ok).toBe(true)
     expect(health.migrations.pending).toBe(0)
@@ -24,10 +14,10 @@ describe('the app shell in Chromium', () => {
   })
 
   it('loads the client from a deep link and navigates between areas', async () => {
-    const { page } = browser
-    await page.goto(`${server.url}/about`)
+    const { page } = app.browser
+    await page.goto(`${app.server.url}/about`)
     await page.getByRole('heading', { name: 'Method and cautions' }).waitFor()
-    await page.goto(`${server.url}/plans/123`)
+    await page.goto(`${app.server.url}/plans/123`)
     await page.getByRole('navigation', { name: 'Main' }).waitFor()
     await page.getByRole('link', { name: 'Parts' }).click()
     // The team's parts need a member: a guest is sent to sign-in and back.
@@ -36,8 +26,8 @@ describe('the app shell in Chromium', () => {
   })
 
   it('uses the bundled IBM Plex Sans on the body', async () => {
-    const { page } = browser
-    await page.goto(`${server.url}/about`)
+    const { page } = app.browser
+    await page.goto(`${app.server.url}/about`)
     await page.getByRole('heading', { name: 'Method and cautions' }).waitFor()
     const family = await page.evaluate(() => getComputedStyle(document.body).fontFamily)
     expect(family).toContain('IBM Plex Sans')
@@ -47,11 +37,11 @@ describe('the app shell in Chromium', () => {
   })
 
   it('has no console errors and no serious accessibility violations', async () => {
-    const { page } = browser
-    await page.goto(`${server.url}/about`)
+    const { page } = app.browser
+    await page.goto(`${app.server.url}/about`)
     await page.getByRole('heading', { name: 'Method and cautions' }).waitFor()
     expect(await seriousAxeViolations(page)).toEqual([])
-    await browser.screenshot('app-shell-about')
-    expect(browser.consoleErrors).toEqual([])
+    await app.browser.screenshot('app-shell-about')
+    expect(app.browser.consoleErrors).toEqual([])
   })
 })

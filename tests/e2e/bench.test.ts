@@ -1,19 +1,9 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest'
+import { describe, expect, it } from 'vitest'
 import type { Page } from 'playwright-core'
-import { openBrowser, seriousAxeViolations, type BrowserSession } from '../helpers/browser'
-import { startServer, type RunningServer } from '../helpers/e2e-server'
+import { seriousAxeViolations } from '../helpers/browser'
+import { useAppUnderTest } from '../helpers/e2e-app'
 
-let server: RunningServer
-let browser: BrowserSession
-
-beforeAll(async () => {
-  server = await startServer()
-  browser = await openBrowser()
-})
-afterAll(async () => {
-  await browser?.close()
-  await server?.stop()
-})
+const app = useAppUnderTest()
 
 const runtime = (page: Page) => page.getByTestId('runtime').innerText()
 const dischargeChart = (page: Page) => page.getByTestId('chart-discharge')
@@ -41,8 +31,8 @@ async function waitForChange(read: () => Promise<string>, before: string): Promi
 
 describe('the rig bench in Chromium', () => {
   it('composes a rig from the library and follows a level change in the runtime and chart', async () => {
-    const { page } = browser
-    await page.goto(`${server.url}/`)
+    const { page } = app.browser
+    await page.goto(`${app.server.url}/`)
     await page.getByRole('heading', { name: 'Rig bench' }).waitFor()
     await page.getByTestId('runtime').waitFor()
 
@@ -72,11 +62,11 @@ describe('the rig bench in Chromium', () => {
     expect((await chartState(page)).pixels).not.toBe(chartBefore.pixels)
     // The same numbers sit in a table beside the chart.
     expect(await page.getByTestId('table-discharge').locator('tbody tr').count()).toBeGreaterThan(3)
-    await browser.screenshot('bench-after-level-change')
+    await app.browser.screenshot('bench-after-level-change')
   })
 
   it('refuses a bad rig file with a message and keeps the rig', async () => {
-    const { page } = browser
+    const { page } = app.browser
     const before = await runtime(page)
     const levelBefore = await page.getByLabel('Level: peaks below clipping').inputValue()
     await page.getByTestId('import-input').setInputFiles({
@@ -93,7 +83,7 @@ describe('the rig bench in Chromium', () => {
   })
 
   it('keeps the rig across a reload', async () => {
-    const { page } = browser
+    const { page } = app.browser
     const level = await page.getByLabel('Level: peaks below clipping').inputValue()
     await page.reload()
     await page.getByTestId('runtime').waitFor()
@@ -101,24 +91,24 @@ describe('the rig bench in Chromium', () => {
   })
 
   it('has no console errors and no serious accessibility violations, light and dark', async () => {
-    const { page } = browser
-    await page.goto(`${server.url}/`)
+    const { page } = app.browser
+    await page.goto(`${app.server.url}/`)
     await page.getByTestId('runtime').waitFor()
     for (const panel of ['power-budget', 'discharge', 'headroom']) {
       await page.getByTestId(panel).scrollIntoViewIfNeeded()
     }
     await page.getByTestId('chart-headroom').waitFor()
     expect(await seriousAxeViolations(page)).toEqual([])
-    await browser.screenshot('bench-light')
+    await app.browser.screenshot('bench-light')
     await page.getByRole('button', { name: 'Dark mode' }).click()
     await page.getByRole('button', { name: 'Light mode' }).waitFor()
     expect(await seriousAxeViolations(page)).toEqual([])
-    await browser.screenshot('bench-dark')
+    await app.browser.screenshot('bench-dark')
     await page.setViewportSize({ width: 390, height: 844 })
     await page.evaluate(() => window.scrollTo(0, 0))
     expect(await seriousAxeViolations(page)).toEqual([])
-    await browser.screenshot('bench-phone')
+    await app.browser.screenshot('bench-phone')
     await page.getByRole('button', { name: 'Light mode' }).click()
-    expect(browser.consoleErrors).toEqual([])
+    expect(app.browser.consoleErrors).toEqual([])
   })
 })

@@ -5,6 +5,7 @@ import type { Page } from 'playwright-core'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { openBrowser, screenshotDir, type BrowserSession } from '../helpers/browser'
 import { startServer, type RunningServer } from '../helpers/e2e-server'
+import { submitSignIn } from '../helpers/e2e-app'
 
 // The runtime card in Chromium (issue 8): printed to PDF it is one page holding the swap times
 // (read back with poppler's pdftotext and pdfinfo), and its share link opens signed out until
@@ -54,9 +55,7 @@ describe('the runtime card, in Chromium', () => {
   it('prints on one page with the swap times, shares a link that works signed out, and revokes it', async () => {
     const { page } = editor
     await page.goto(`${server.url}/sign-in?redirect=%2Fplans`)
-    await page.getByLabel('E-mail').fill('editor@alder-creek.example')
-    await page.getByLabel('Password').fill('loudhour-demo-2026')
-    await page.locator('form').getByRole('button', { name: 'Sign in' }).click()
+    await submitSignIn(page, 'editor@alder-creek.example')
     await page.waitForURL(`${server.url}/plans`)
     await page.getByText('Saturday market').first().click()
     await page.waitForURL(/\/plans\/\d+$/)

@@ -1,36 +1,24 @@
 import { fileURLToPath } from 'node:url'
-import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import { openBrowser, seriousAxeViolations, type BrowserSession } from '../helpers/browser'
-import { startServer, type RunningServer } from '../helpers/e2e-server'
+import { describe, expect, it } from 'vitest'
+import { seriousAxeViolations } from '../helpers/browser'
+import { submitSignIn, useAppUnderTest } from '../helpers/e2e-app'
 
-let server: RunningServer
-let browser: BrowserSession
-
-beforeAll(async () => {
-  server = await startServer()
-  browser = await openBrowser()
-})
-afterAll(async () => {
-  await browser?.close()
-  await server?.stop()
-})
+const app = useAppUnderTest()
 
 // 2.000 A for 2 h while the voltage falls evenly from 41 V to 30 V, sampled every minute.
 const logFile = fileURLToPath(new URL('../fixtures/discharge-log-10s-2a.csv', import.meta.url))
 
 describe('a discharge log on the pack page, in Chromium', () => {
   it('an editor uploads a log, sees what the pack holds, and makes it the pack health', async () => {
-    const { page } = browser
-    await page.goto(`${server.url}/sign-in`)
-    await page.getByLabel('E-mail').fill('editor@alder-creek.example')
-    await page.getByLabel('Password').fill('loudhour-demo-2026')
-    await page.locator('form').getByRole('button', { name: 'Sign in' }).click()
-    await page.waitForURL(`${server.url}/`)
+    const { page } = app.browser
+    await page.goto(`${app.server.url}/sign-in`)
+    await submitSignIn(page, 'editor@alder-creek.example')
+    await page.waitForURL(`${app.server.url}/`)
 
     // A "40 V max" tool pack, 10 Li-ion cells in series (common practice), 2 × 2.5 Ah in parallel.
-    const me = await (await page.request.get(`${server.url}/api/v1/auth/me`)).json()
+    const me = await (await page.request.get(`${app.server.url}/api/v1/auth/me`)).json()
     const teamId = me.teams[0].id as number
-    const created = await page.request.post(`${server.url}/api/v1/teams/${teamId}/packs`, {
+    const created = await page.request.post(`${app.server.url}/api/v1/teams/${teamId}/packs`, {
       data: {
         name: 'Bench test pack',
         chemistry: 'li-ion',
@@ -43,7 +31,7 @@ describe('a discharge log on the pack page, in Chromium', () => {
     expect(created.status()).toBe(201)
     const pack = await created.json()
 
-    await page.goto(`${server.url}/parts/packs/${pack.id}`)
+    await page.goto(`${app.server.url}/parts/packs/${pack.id}`)
     await page.getByRole('heading', { name: 'Bench test pack' }).waitFor()
     await page.getByText('No logs for this pack yet.').waitFor()
     await page.getByTestId('discharge-caution').waitFor()
@@ -65,12 +53,12 @@ describe('a discharge log on the pack page, in Chromium', () => {
       .getByTestId('discharge-log-list')
       .getByRole('rowheader', { name: 'discharge-log-10s-2a.csv' })
       .waitFor()
-    await browser.screenshot('discharge-pack-page')
+    await app.browser.screenshot('discharge-pack-page')
 
     await page.getByRole('button', { name: "Use 80.0\u00a0% as the pack's health" }).click()
     await page.getByText('Health: 80.0\u00a0%.').waitFor()
-    await browser.screenshot('discharge-accepted')
+    await app.browser.screenshot('discharge-accepted')
     expect(await seriousAxeViolations(page)).toEqual([])
-    expect(browser.consoleErrors).toEqual([])
+    expect(app.browser.consoleErrors).toEqual([])
   })
 })

@@ -1,19 +1,8 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import { openBrowser, seriousAxeViolations, type BrowserSession } from '../helpers/browser'
-import { startServer, type RunningServer } from '../helpers/e2e-server'
+import { describe, expect, it } from 'vitest'
+import { seriousAxeViolations } from '../helpers/browser'
+import { useAppUnderTest } from '../helpers/e2e-app'
 
-let server: RunningServer
-let browser: BrowserSession
-
-beforeAll(async () => {
-  // The embedded default: demo seed on, no SMTP_URL, so mail lands in the local outbox.
-  server = await startServer()
-  browser = await openBrowser()
-})
-afterAll(async () => {
-  await browser?.close()
-  await server?.stop()
-})
+const app = useAppUnderTest()
 
 const invitee = {
   name: 'Robin Newcomer',
@@ -24,15 +13,15 @@ const invitee = {
 describe('inviting someone to a team, in Chromium', () => {
   it('prints the demo sign-ins at start', () => {
     // Source: design/api.md, "Demo data" (printed at start).
-    expect(server.output()).toContain('admin@alder-creek.example  loudhour-demo-2026')
+    expect(app.server.output()).toContain('admin@alder-creek.example  loudhour-demo-2026')
   })
 
   it('admin invites, the mail arrives, the invitee signs up through the link, accepts and sees the team', async () => {
-    const { page } = browser
+    const { page } = app.browser
     // The labels and button names below are unique on their pages.
     const main = page
 
-    await page.goto(`${server.url}/team`)
+    await page.goto(`${app.server.url}/team`)
     await page.waitForURL(/\/sign-in\?redirect=(%2F|\/)team$/)
     await main.getByLabel('E-mail').waitFor()
     // Source: WCAG 2.2 via axe-core rules (serious and critical findings only).
@@ -40,7 +29,7 @@ describe('inviting someone to a team, in Chromium', () => {
     await main.getByLabel('E-mail').fill('admin@alder-creek.example')
     await main.getByLabel('Password').fill('loudhour-demo-2026')
     await main.locator('form').getByRole('button', { name: 'Sign in' }).click()
-    await page.waitForURL(`${server.url}/team`)
+    await page.waitForURL(`${app.server.url}/team`)
 
     await main.getByText('Members of Alder Creek Market Crew').waitFor()
     await main.getByLabel('E-mail').fill(invitee.email)
@@ -54,17 +43,19 @@ describe('inviting someone to a team, in Chromium', () => {
 
     await page.getByRole('button', { name: 'Rowan Alder (admin)' }).click()
     await page.getByText('Mail outbox').click()
-    await page.waitForURL(`${server.url}/outbox`)
+    await page.waitForURL(`${app.server.url}/outbox`)
     await main.getByRole('button', { name: /Join Alder Creek Market Crew on Loudhour/ }).click()
     const link = await main.locator('a[href*="/invitations/accept?token="]').getAttribute('href')
     // Source: design/api.md (links are PUBLIC_URL/invitations/accept?token=…).
-    expect(link).toMatch(new RegExp(`^${server.url}/invitations/accept\\?token=[A-Za-z0-9_-]{43}$`))
-    await browser.screenshot('invitation-outbox')
+    expect(link).toMatch(
+      new RegExp(`^${app.server.url}/invitations/accept\\?token=[A-Za-z0-9_-]{43}$`),
+    )
+    await app.browser.screenshot('invitation-outbox')
     expect(await seriousAxeViolations(page)).toEqual([])
 
     await page.getByRole('button', { name: 'Rowan Alder (admin)' }).click()
     await page.getByText('Sign out').click()
-    await page.waitForURL(`${server.url}/sign-in`)
+    await page.waitForURL(`${app.server.url}/sign-in`)
 
     await page.goto(link ?? '')
     await page.waitForURL(/\/sign-in\?redirect=/)
@@ -78,11 +69,11 @@ describe('inviting someone to a team, in Chromium', () => {
     await page.waitForURL(/\/invitations\/accept\?token=/)
     await main.getByText('You are invited to Alder Creek Market Crew as editor.').waitFor()
     await main.getByRole('button', { name: 'Join Alder Creek Market Crew' }).click()
-    await page.waitForURL(`${server.url}/team`)
+    await page.waitForURL(`${app.server.url}/team`)
     await main.getByText('Members of Alder Creek Market Crew').waitFor()
     const row = main.getByRole('row', { name: new RegExp(invitee.email) })
     await expect(row.textContent()).resolves.toContain('editor')
-    await browser.screenshot('invitation-accepted')
-    expect(browser.consoleErrors).toEqual([])
+    await app.browser.screenshot('invitation-accepted')
+    expect(app.browser.consoleErrors).toEqual([])
   })
 })

@@ -1,39 +1,26 @@
 import type { Page } from 'playwright-core'
-import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import { openBrowser, seriousAxeViolations, type BrowserSession } from '../helpers/browser'
-import { startServer, type RunningServer } from '../helpers/e2e-server'
+import { describe, expect, it } from 'vitest'
+import { seriousAxeViolations } from '../helpers/browser'
+import { submitSignIn, useAppUnderTest } from '../helpers/e2e-app'
 
 // An editor adds a pack and saves a rig built on it; after a reload the rig is still there; a
 // viewer of the same team sees both and can change neither. Demo sign-ins: design/api.md.
 
-let server: RunningServer
-let browser: BrowserSession
+const app = useAppUnderTest()
 
-beforeAll(async () => {
-  server = await startServer()
-  browser = await openBrowser()
-})
-afterAll(async () => {
-  await browser?.close()
-  await server?.stop()
-})
-
-const demoPassword = 'loudhour-demo-2026'
 const packName = 'Night market pack 18 V'
 const rigName = 'Night market cart'
 
 async function signInThrough(page: Page, path: string, email: string): Promise<void> {
-  await page.goto(`${server.url}${path}`)
+  await page.goto(`${app.server.url}${path}`)
   await page.waitForURL(/\/sign-in\?redirect=/)
-  await page.getByLabel('E-mail').fill(email)
-  await page.getByLabel('Password').fill(demoPassword)
-  await page.locator('form').getByRole('button', { name: 'Sign in' }).click()
-  await page.waitForURL(`${server.url}${path}`)
+  await submitSignIn(page, email)
+  await page.waitForURL(`${app.server.url}${path}`)
 }
 
 describe('the parts library and saved rigs, in Chromium', () => {
   it('an editor adds a pack, builds and saves a rig, reloads and finds it', async () => {
-    const { page } = browser
+    const { page } = app.browser
     await signInThrough(page, '/parts', 'editor@alder-creek.example')
     await page.getByRole('heading', { name: 'Parts' }).waitFor()
     // The demo crew's own packs are listed.
@@ -83,23 +70,23 @@ describe('the parts library and saved rigs, in Chromium', () => {
       .getByText(`Saved rig “${rigName}”, version 2`)
       .waitFor()
     await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Rigs' }).click()
-    await page.waitForURL(`${server.url}/rigs`)
+    await page.waitForURL(`${app.server.url}/rigs`)
     const row = page.getByTestId('team-rigs').getByRole('row', { name: new RegExp(rigName) })
     await row.waitFor()
     // The runtime and warnings come from the server's own run of the engine at save.
     expect(await row.textContent()).toMatch(/\d+\s*h|\d+\s*min/)
     expect(await seriousAxeViolations(page)).toEqual([])
-    await browser.screenshot('rigs-editor')
+    await app.browser.screenshot('rigs-editor')
 
     await page.getByRole('button', { name: 'Sam Creek (editor)' }).click()
     await page.getByText('Sign out').click()
-    await page.waitForURL(`${server.url}/sign-in`)
+    await page.waitForURL(`${app.server.url}/sign-in`)
   })
 
   it('a viewer sees the rig and the pack and cannot change them', async () => {
-    const { page } = browser
+    const { page } = app.browser
     // Whatever the editor's test left behind, this one starts signed out.
-    await browser.context.clearCookies()
+    await app.browser.context.clearCookies()
     await signInThrough(page, '/rigs', 'viewer@alder-creek.example')
     await page.getByTestId('read-only-note').waitFor()
     const row = page.getByTestId('team-rigs').getByRole('row', { name: new RegExp(rigName) })
@@ -114,13 +101,13 @@ describe('the parts library and saved rigs, in Chromium', () => {
       .getByRole('navigation', { name: 'Main' })
       .getByRole('link', { name: 'Parts' })
       .click()
-    await page.waitForURL(`${server.url}/parts`)
+    await page.waitForURL(`${app.server.url}/parts`)
     await page.getByTestId('team-packs').getByText(packName).waitFor()
     expect(await page.getByRole('button', { name: 'Add pack' }).count()).toBe(0)
     expect(
       await page.getByRole('button', { name: /^(Edit|Delete|Duplicate|Copy to team):/ }).count(),
     ).toBe(0)
-    await browser.screenshot('parts-viewer')
-    expect(browser.consoleErrors).toEqual([])
+    await app.browser.screenshot('parts-viewer')
+    expect(app.browser.consoleErrors).toEqual([])
   })
 })
