@@ -7,6 +7,11 @@ import { useResourceList } from './useResourceList'
 /** Prefix of a team part's picker id, so it never collides with a built-in library id. */
 const teamIdPrefix = 'team-'
 
+/** The saved part's id behind a picker id from `useTeamParts`, or undefined for a library id. */
+export function savedPartId(pickerId: string): number | undefined {
+  return pickerId.startsWith(teamIdPrefix) ? Number(pickerId.slice(teamIdPrefix.length)) : undefined
+}
+
 /** The part as the estimate request holds it: a saved part's spec without what the team keeps. */
 export function partOfItem<Part>(item: SavedItemMeta & Part): Part {
   const {
@@ -47,5 +52,10 @@ export function useTeamParts<Part>(api: ResourceApi<SavedItemMeta & Part, unknow
       : undefined,
   )
 
-  return { items, note }
+  // Loaded without an error: only then does a missing match mean the part is not the team's.
+  const ready = computed(
+    () => list.teamId.value !== undefined && !list.loading.value && !list.error.value,
+  )
+
+  return { items, note, ready }
 }

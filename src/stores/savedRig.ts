@@ -1,6 +1,7 @@
 import { defineStore } from 'pinia'
 import { computed, ref, watch } from 'vue'
 import { rigsApi } from '@/api/resources'
+import type { RigPartReferences } from '@/composables/useRigPartReferences'
 import type { RigBody, RigItem } from '../../shared/schemas/resources'
 import { useRigDraftStore } from './rigDraft'
 
@@ -13,7 +14,7 @@ export interface SavedRigLink {
   notes: string
   /** The spec as saved, as JSON: the bench has unsaved changes when its rig differs from it. */
   savedSpecJson: string
-  references: Pick<RigBody, 'packId' | 'amplifierId' | 'speakersId' | 'accessoryIds'>
+  references: RigPartReferences
 }
 
 const storageKey = 'loudhour.savedRig.v1'
@@ -111,15 +112,19 @@ export const useSavedRigStore = defineStore('savedRig', () => {
     return bench.validation.data
   }
 
-  /** Saves over the linked rig with the version it was opened at (409 when someone saved since). */
-  async function save(): Promise<RigItem> {
+  /**
+   * Saves over the linked rig with the version it was opened at (409 when someone saved since).
+   * `references` are the team parts the rig now uses (useRigPartReferences); without them the
+   * rig keeps the ones it had.
+   */
+  async function save(references?: RigPartReferences): Promise<RigItem> {
     const current = link.value
     if (!current) throw new Error('This rig is not saved for a team yet: use “Save as new”.')
     const saved = await rigsApi.update(current.teamId, current.rigId, {
       name: bench.name,
       notes: current.notes,
       spec: currentSpec(),
-      ...current.references,
+      ...(references ?? current.references),
       version: current.version,
     })
     linkTo(current.teamId, saved)
@@ -127,13 +132,17 @@ export const useSavedRigStore = defineStore('savedRig', () => {
   }
 
   /** Saves the bench's rig as a new rig of the team, and links the bench to it. */
-  async function saveAsNew(teamId: number, name: string): Promise<RigItem> {
+  async function saveAsNew(
+    teamId: number,
+    name: string,
+    references?: RigPartReferences,
+  ): Promise<RigItem> {
     const current = link.value
     const saved = await rigsApi.create(teamId, {
       name,
       notes: current?.notes ?? '',
       spec: currentSpec(),
-      ...(current?.teamId === teamId ? current.references : {}),
+      ...(references ?? (current?.teamId === teamId ? current.references : {})),
     })
     linkTo(teamId, saved)
     return saved
