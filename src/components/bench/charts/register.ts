@@ -32,10 +32,15 @@ export function useChartPalette(): ComputedRef<ChartPalette> {
 }
 
 /**
- * Options every bench chart shares: no animation and pre-parsed, decimated points, because a
- * redraw follows every keystroke and should fit in one frame.
+ * Options every chart shares: no animation and pre-parsed points, because a bench redraw follows
+ * every keystroke and should fit in one frame. `decimate` thins long series (measured logs of
+ * thousands of rows); the engine's timelines hold at most 500 points, and thinning those costs
+ * more time than it saves.
  */
-export function baseOptions(palette: ChartPalette): ChartOptions<'line'> & ChartOptions<'bar'> {
+export function baseOptions(
+  palette: ChartPalette,
+  { decimate = false }: { decimate?: boolean } = {},
+): ChartOptions<'line'> & ChartOptions<'bar'> {
   return {
     responsive: true,
     maintainAspectRatio: false,
@@ -44,7 +49,7 @@ export function baseOptions(palette: ChartPalette): ChartOptions<'line'> & Chart
     interaction: { mode: 'index', intersect: false },
     plugins: {
       // A few hundred pixels wide: more points than that cannot be seen, only drawn.
-      decimation: { enabled: true, algorithm: 'min-max' },
+      decimation: { enabled: decimate, algorithm: 'min-max' },
       // The key is page text beside the chart (BenchChartLegend).
       legend: { display: false },
       tooltip: { enabled: true },
@@ -104,7 +109,10 @@ export function legendItems(
   }))
 }
 
-/** Tick settings that keep label measuring (the costliest part of a redraw) to a few labels. */
+/**
+ * Tick settings that keep label measuring (the costliest part of a redraw) to a few labels: at
+ * most seven ticks are made, so there is nothing for chart.js to skip and measure twice.
+ */
 export function tickOptions(palette: ChartPalette) {
-  return { color: palette.text, maxTicksLimit: 7, maxRotation: 0, sampleSize: 4 }
+  return { color: palette.text, maxTicksLimit: 7, maxRotation: 0, sampleSize: 4, autoSkip: false }
 }
