@@ -1,4 +1,4 @@
-import { computed, effectScope, type ComputedRef } from 'vue'
+import { computed, effectScope, inject, provide, type ComputedRef, type InjectionKey } from 'vue'
 import { estimate } from '../../shared/engine'
 import type { EstimateRequest, EstimateResult } from '../../shared/schemas/estimate'
 import { useRigDraftStore } from '@/stores/rigDraft'
@@ -65,8 +65,26 @@ function createState(store: RigDraftStore): EstimateState {
   })!
 }
 
-/** The live estimate of the rig on the bench, computed in the browser (no round trip). */
+const shownEstimateKey: InjectionKey<EstimateState> = Symbol('shown estimate')
+
+/**
+ * Gives the components below the caller another view of the estimate (one that lags while they
+ * are off screen: BenchCatchUp); `useEstimate` returns it to them.
+ */
+export function provideShownEstimate(state: EstimateState): void {
+  provide(shownEstimateKey, state)
+}
+
+/**
+ * The estimate of the rig on the bench, computed in the browser (no round trip). Inside a
+ * BenchCatchUp it is the estimate as that panel shows it; `useLiveEstimate` is always current.
+ */
 export function useEstimate(): EstimateState {
+  return inject(shownEstimateKey, null) ?? useLiveEstimate()
+}
+
+/** The estimate of the rig as it is now, whatever is on screen. */
+export function useLiveEstimate(): EstimateState {
   const store = useRigDraftStore()
   let state = states.get(store)
   if (!state) {
