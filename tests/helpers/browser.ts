@@ -85,6 +85,17 @@ const axeSource = readFileSync(
  * evaluated rather than injected as a <script> tag, which the app's CSP rightly refuses.
  */
 export async function seriousAxeViolations(page: Page): Promise<AxeViolation[]> {
+  // Axe judges colours as they are drawn: let entrance transitions (a toast fading in, a dialog)
+  // finish first, or it measures a half-faded text. Endless ones (spinners) are not waited for.
+  await page.waitForFunction(() =>
+    document
+      .getAnimations()
+      .every(
+        (animation) =>
+          animation.playState !== 'running' ||
+          animation.effect?.getComputedTiming().endTime === Infinity,
+      ),
+  )
   await page.evaluate(axeSource)
   const violations = await page.evaluate(async () => {
     const axe = (
