@@ -1,5 +1,6 @@
 import { h } from 'vue'
-import { NButton, useDialog, useMessage } from 'naive-ui'
+import { NButton, useMessage } from 'naive-ui'
+import { useAppDialog } from '@/composables/useAppDialog'
 import type { DetachedRigs } from '../../shared/schemas/resources'
 
 interface NamedItem {
@@ -18,7 +19,7 @@ interface ItemWrites<Item> {
  * whose accessible name starts with its visible text (WCAG 2.5.3, label in name).
  */
 export function useItemActions<Item extends NamedItem>(writes: ItemWrites<Item>) {
-  const dialog = useDialog()
+  const dialog = useAppDialog()
   const message = useMessage()
 
   function failed(error: unknown): void {

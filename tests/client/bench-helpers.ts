@@ -1,14 +1,15 @@
 import { flushPromises, mount, type VueWrapper } from '@vue/test-utils'
-import { NDialogProvider, NMessageProvider } from 'naive-ui'
+import { NMessageProvider } from 'naive-ui'
 import { createPinia, setActivePinia } from 'pinia'
 import { defineComponent, h } from 'vue'
 import { createMemoryHistory, createRouter, RouterView } from 'vue-router'
+import AppDialogHost from '@/components/AppDialogHost.vue'
 import BenchView from '@/views/BenchView.vue'
 
 // The bench inside the providers App.vue gives it, on a router holding only the bench, so these
 // tests do not depend on the rest of the app.
 const Harness = defineComponent({
-  setup: () => () => h(NMessageProvider, () => h(NDialogProvider, () => h(BenchView))),
+  setup: () => () => h(NMessageProvider, () => h(AppDialogHost, () => h(BenchView))),
 })
 
 /** Mounting the whole bench in jsdom takes a few seconds on a busy machine. */
