@@ -20,6 +20,8 @@ export interface EstimateState {
 
 type RigDraftStore = ReturnType<typeof useRigDraftStore>
 
+const noIssues: ReadonlyMap<string, string> = new Map()
+
 // One state per store, shared by every component that asks: the engine runs once per change of
 // the draft, however many panels read the result.
 const states = new WeakMap<RigDraftStore, EstimateState>()
@@ -44,9 +46,10 @@ function createState(store: RigDraftStore): EstimateState {
       }
     })
     const fieldIssues = computed(() => {
-      const issues = new Map<string, string>()
       const validation = store.validation
-      if (validation.success) return issues
+      // The same empty map every time: nothing that shows messages re-renders for a valid change.
+      if (validation.success) return noIssues
+      const issues = new Map<string, string>()
       for (const issue of validation.error.issues) {
         const path = issue.path.map(String).join('.')
         // The first message for a field is the one to fix first.
