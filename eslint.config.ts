@@ -30,6 +30,31 @@ export default tseslint.config(
     rules: { 'no-restricted-globals': 'off' },
   },
   {
+    // Dialogs and the dark theme load on first use; a direct import would put them back into
+    // every page's first download.
+    files: ['src/**'],
+    ignores: ['src/components/AppDialogLayer.vue', 'src/theme/naiveDark.ts'],
+    rules: {
+      'no-restricted-imports': [
+        'error',
+        {
+          paths: [
+            {
+              name: 'naive-ui',
+              importNames: ['useDialog', 'NDialogProvider'],
+              message: 'Use useAppDialog from src/composables/useAppDialog.ts.',
+            },
+            {
+              name: 'naive-ui',
+              importNames: ['darkTheme'],
+              message: 'Use naiveDarkTheme from src/theme/naiveDark.ts.',
+            },
+          ],
+        },
+      ],
+    },
+  },
+  {
     files: ['shared/**'],
     rules: {
       'no-restricted-imports': [
