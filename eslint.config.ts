@@ -30,6 +30,11 @@ export default tseslint.config(
     rules: { 'no-restricted-globals': 'off' },
   },
   {
+    // A test may define several small stand-in components beside each other.
+    files: ['tests/**'],
+    rules: { 'vue/one-component-per-file': 'off' },
+  },
+  {
     // Dialogs and the dark theme load on first use; a direct import would put them back into
     // every page's first download.
     files: ['src/**'],
