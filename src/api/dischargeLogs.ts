@@ -5,7 +5,7 @@ import {
   type DischargeLogDetail,
   type DischargeLogSummary,
 } from '../../shared/discharge/log'
-import { ApiRequestError, apiRequest } from './http'
+import { ApiRequestError, apiRequest, reportUnauthorized } from './http'
 
 // A saved pack's measured discharges (design/api.md, "Plans and packs").
 
@@ -67,7 +67,11 @@ export function uploadDischargeLog(
       if (xhr.status === 201) {
         onProgress(1)
         resolve(xhr.response as DischargeLogDetail)
-      } else reject(requestError(xhr.status, xhr.response))
+        return
+      }
+      // The session ended meanwhile: to sign-in and back, as for every other request.
+      if (xhr.status === 401) reportUnauthorized()
+      reject(requestError(xhr.status, xhr.response))
     })
     xhr.addEventListener('error', () =>
       reject(

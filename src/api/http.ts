@@ -28,6 +28,11 @@ export function onUnauthorized(listener: UnauthorizedListener): () => void {
   return () => unauthorizedListeners.delete(listener)
 }
 
+/** Tells the session layer a request answered 401 (for requests made without `apiRequest`). */
+export function reportUnauthorized(): void {
+  for (const listener of unauthorizedListeners) listener()
+}
+
 export interface ApiRequestOptions {
   method?: 'GET' | 'POST' | 'PUT' | 'PATCH' | 'DELETE'
   body?: unknown
@@ -71,9 +76,7 @@ export async function apiRequest<T>(path: string, options: ApiRequestOptions = {
     const error = (
       payload as { error?: { code?: string; message?: string; issues?: ApiFieldIssue[] } }
     )?.error
-    if (response.status === 401 && !options.quietUnauthorized) {
-      for (const listener of unauthorizedListeners) listener()
-    }
+    if (response.status === 401 && !options.quietUnauthorized) reportUnauthorized()
     throw new ApiRequestError(
       response.status,
       error?.code ?? 'http-' + response.status,
