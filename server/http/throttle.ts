@@ -2,6 +2,9 @@ import type { Request, RequestHandler } from 'express'
 import { ipKeyGenerator, rateLimit } from 'express-rate-limit'
 import { ApiError } from './errors'
 
+export const minuteMs = 60 * 1000
+export const hourMs = 60 * minuteMs
+
 export interface ThrottleOptions {
   /** Distinguishes this limiter's counters and its `req` property from others on the same route. */
   name: string

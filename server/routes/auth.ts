@@ -24,11 +24,10 @@ import { hashPassword, verifyPassword } from '../auth/passwords'
 import { requireUser, signedInUser } from '../auth/require'
 import { users } from '../db/schema'
 import { ApiError, parseInput } from '../http/errors'
-import { throttle } from '../http/throttle'
+import { hourMs, throttle } from '../http/throttle'
 import { linkTo, passwordResetMail } from '../mail/templates'
 
 const quarterHourMs = 15 * 60 * 1000
-const hourMs = 60 * 60 * 1000
 
 /** The normalised address in the body, as the per-account limiters count it. */
 function bodyEmail(req: Request): string | undefined {

@@ -4,7 +4,7 @@ import { requireTeamRole, signedInUser, teamMembership } from '../auth/require'
 import type { AccountsContext } from '../auth/context'
 import { shareLinks } from '../db/schema-resources'
 import { ApiError, parseInput } from '../http/errors'
-import { throttle } from '../http/throttle'
+import { hourMs, throttle } from '../http/throttle'
 import { cardMail } from '../card/card-mail'
 import { planCard, requireTeamPlan } from '../card/plan-card'
 import { createShareLink } from '../card/share-links'
@@ -15,7 +15,6 @@ import {
 } from '../../shared/card/schemas'
 import { planIdParam } from './share-links'
 
-const hourMs = 60 * 60 * 1000
 
 function recipientsLabel(addresses: string[]): string {
   const label = `E-mailed to ${addresses.join(', ')}`

@@ -2,7 +2,7 @@ import { Router } from 'express'
 import { eq } from 'drizzle-orm'
 import { plans } from '../db/schema-resources'
 import { ApiError } from '../http/errors'
-import { throttle } from '../http/throttle'
+import { minuteMs, throttle } from '../http/throttle'
 import type { ResourceContext } from '../resources/resource-definition'
 import { planCard } from '../card/plan-card'
 import { findLiveShareLink } from '../card/share-links'
@@ -10,7 +10,6 @@ import type { SharedCardResponse } from '../../shared/card/schemas'
 
 // Tokens are 32 random bytes in base64url (auth/link-tokens.ts): anything else names no link.
 const tokenPattern = /^[A-Za-z0-9_-]{43}$/
-const minuteMs = 60_000
 
 const notShared = () =>
   new ApiError(

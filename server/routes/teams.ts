@@ -14,6 +14,7 @@ import { teamsOf } from '../auth/memberships'
 import { teams } from '../db/schema'
 import { ApiError, parseInput } from '../http/errors'
 import { rowIdParam } from '../http/params'
+import { hourMs, throttle } from '../http/throttle'
 import { linkTo, invitationMail } from '../mail/templates'
 import { createInvitation, deleteInvitation, listPendingInvitations } from '../teams/invitations'
 import { changeMemberRole, listMembers, removeMember } from '../teams/members'
@@ -88,34 +89,53 @@ export function teamsRouter(context: AccountsContext): Router {
     })
   })
 
-  router.post('/:teamId/invitations', requireTeamRole('admin'), async (req, res) => {
-    const { teamId, role } = teamMembership(req)
-    const input = parseInput(invitationCreateSchema, req.body)
-    const inviter = signedInUser(req).user
-    const { invitation, token } = createInvitation(db, teamId, inviter.id, input, clock().getTime())
-    try {
-      await mail.send(
-        invitationMail({
-          to: invitation.email,
-          teamId,
-          teamName: teamView(teamId, role).name,
-          inviterName: inviter.name,
-          role: invitation.role,
-          url: linkTo(context.publicUrl, '/invitations/accept', token),
-        }),
+  router.post(
+    '/:teamId/invitations',
+    requireTeamRole('admin'),
+    throttle({
+      name: 'invitations',
+      windowMs: hourMs,
+      // Ours: enough to bring a whole crew in at once, too few to use the app as a mailer.
+      limit: 30,
+      key: (req) => (req.auth ? String(req.auth.user.id) : undefined),
+      message:
+        'Too many invitations sent from this account in the last hour. Wait a while and try again.',
+    }),
+    async (req, res) => {
+      const { teamId, role } = teamMembership(req)
+      const input = parseInput(invitationCreateSchema, req.body)
+      const inviter = signedInUser(req).user
+      const { invitation, token } = createInvitation(
+        db,
+        teamId,
+        inviter.id,
+        input,
+        clock().getTime(),
       )
-    } catch (error) {
-      // An invitation nobody was told about would sit in the pending list looking sent.
-      deleteInvitation(db, teamId, invitation.id)
-      context.log(error)
-      throw new ApiError(
-        502,
-        'mail-failed',
-        'The invitation could not be e-mailed; nothing was saved. Try again later.',
-      )
-    }
-    res.status(201).json({ invitation })
-  })
+      try {
+        await mail.send(
+          invitationMail({
+            to: invitation.email,
+            teamId,
+            teamName: teamView(teamId, role).name,
+            inviterName: inviter.name,
+            role: invitation.role,
+            url: linkTo(context.publicUrl, '/invitations/accept', token),
+          }),
+        )
+      } catch (error) {
+        // An invitation nobody was told about would sit in the pending list looking sent.
+        deleteInvitation(db, teamId, invitation.id)
+        context.log(error)
+        throw new ApiError(
+          502,
+          'mail-failed',
+          'The invitation could not be e-mailed; nothing was saved. Try again later.',
+        )
+      }
+      res.status(201).json({ invitation })
+    },
+  )
 
   router.delete('/:teamId/invitations/:invitationId', requireTeamRole('admin'), (req, res) => {
     const invitationId = rowIdParam(req, 'invitationId', 'No such pending invitation in this team.')

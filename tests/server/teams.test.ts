@@ -139,6 +139,21 @@ describe('invitations', () => {
     expect(failed.body.error.code).toBe('mail-failed')
     expect(testApp.database.db.select().from(invitations).all()).toEqual([])
   })
+
+  it('throttles one account after 30 invitations an hour, with 429 and Retry-After', async () => {
+    // Ours (routes/teams.ts): a crew at once, not a mailing list; counted per inviting account.
+    const c = await crew()
+    const send = (index: number) =>
+      request(c.testApp.app)
+        .post(`/api/v1/teams/${c.teamId}/invitations`)
+        .set('Cookie', c.admin.cookie)
+        .send({ email: `crew${index}@crew.example`, role: 'viewer' })
+    for (let index = 0; index < 30; index++) await send(index).expect(201)
+    const refused = await send(30).expect(429)
+    expect(refused.body.error.code).toBe('throttled')
+    expect(Number(refused.headers['retry-after'])).toBeGreaterThan(0)
+    expect(testApp!.database.db.select().from(invitations).all()).toHaveLength(30)
+  })
 })
 
 describe('roles and the last admin', () => {
