@@ -15,7 +15,6 @@ import {
 } from '../../shared/card/schemas'
 import { planIdParam } from './share-links'
 
-
 function recipientsLabel(addresses: string[]): string {
   const label = `E-mailed to ${addresses.join(', ')}`
   return label.length <= 80 ? label : `E-mailed to ${addresses.length} addresses`
