@@ -4,7 +4,7 @@ import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest'
 import { defineComponent, h } from 'vue'
 import { NConfigProvider } from 'naive-ui'
 import PartForm from '@/components/parts/PartForm.vue'
-import { partKinds } from '@/components/parts/partKinds'
+import { partKinds, type PartRecord } from '@/components/parts/partKinds'
 import { useRigDraftStore } from '@/stores/rigDraft'
 import { useSavedRigStore } from '@/stores/savedRig'
 import { exampleRigs } from '../../shared/library'
@@ -46,6 +46,15 @@ beforeEach(() => {
   setActivePinia(createPinia())
 })
 afterEach(() => vi.unstubAllGlobals())
+
+/** The parts form for one kind of part, inside the theme provider the app gives it. */
+function mountPartForm(kindId: string, save: () => Promise<void>, part?: PartRecord) {
+  const kind = partKinds.find((candidate) => candidate.id === kindId)!
+  const Host = defineComponent(
+    () => () => h(NConfigProvider, null, () => h(PartForm, { kind, save, part })),
+  )
+  return mount(Host, { attachTo: document.body })
+}
 
 describe('the saved rig on the bench', () => {
   it('opens with no unsaved changes, and notices an edit and a new name', async () => {
@@ -106,11 +115,7 @@ describe('the saved rig on the bench', () => {
 describe('the part form', () => {
   it('shows the shared schema’s message beside the field and sends nothing', async () => {
     const save = vi.fn(() => Promise.resolve())
-    const packs = partKinds.find((kind) => kind.id === 'packs')!
-    const Host = defineComponent(
-      () => () => h(NConfigProvider, null, () => h(PartForm, { kind: packs, save })),
-    )
-    const wrapper = mount(Host, { attachTo: document.body })
+    const wrapper = mountPartForm('packs', save)
     await wrapper.find('#part-packs-name').setValue('Spare pack')
     await wrapper.find('#part-packs-seriesCells').setValue('0')
     await wrapper.find('form').trigger('submit')
@@ -118,5 +123,45 @@ describe('the part form', () => {
     expect(wrapper.text()).toContain('Cells in series must be a whole number from 1 to 100')
     expect(save).not.toHaveBeenCalled()
     wrapper.unmount()
+  })
+
+  it('takes cell resistance in mΩ and efficiency in %, as the bench does, and stores SI', async () => {
+    const save = vi.fn(() => Promise.resolve())
+    const wrapper = mountPartForm('packs', save)
+    await wrapper.find('#part-packs-name').setValue('Spare pack')
+    await wrapper.find('#part-packs-seriesCells').setValue('5')
+    await wrapper.find('#part-packs-parallelCells').setValue('2')
+    await wrapper.find('#part-packs-cellCapacityAh').setValue('4')
+    // 22 mΩ, a typical 18650 power cell's DC resistance (from memory), is 0.022 Ω.
+    await wrapper.find('#part-packs-cellResistanceOhm').setValue('22')
+    expect(wrapper.find('label[for="part-packs-cellResistanceOhm"]').exists()).toBe(true)
+    expect(wrapper.text()).toContain('mΩ')
+    await wrapper.find('form').trigger('submit')
+    await flushPromises()
+    expect(save).toHaveBeenCalledOnce()
+    const body = (save.mock.calls[0] as unknown as [Record<string, unknown>])[0]
+    expect(body.cellResistanceOhm).toBeCloseTo(0.022, 9)
+    wrapper.unmount()
+
+    // An accessory saved with a 0.88 converter efficiency shows 88 %.
+    const part = {
+      id: 3,
+      version: 1,
+      name: 'Mixer',
+      notes: '',
+      createdAt: '2026-05-02T09:00:00.000Z',
+      updatedAt: '2026-05-02T09:00:00.000Z',
+      createdBy: null,
+      updatedBy: null,
+      powerW: 2,
+      inputMinV: 9,
+      inputMaxV: 15,
+      feed: 'converter',
+      efficiency: 0.88,
+    }
+    const editing = mountPartForm('accessories', save, part)
+    const efficiency = editing.find('#part-accessories-efficiency').element as HTMLInputElement
+    expect(efficiency.value).toBe('88')
+    editing.unmount()
   })
 })

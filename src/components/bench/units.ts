@@ -100,3 +100,12 @@ export function useDisplayUnits(): DisplayUnits {
 export function showQuantity(si: number, quantity: DisplayQuantity): string {
   return withUnit(formatNumber(quantity.toDisplay(si), quantity.decimals), quantity.unit)
 }
+
+/**
+ * An SI value as a number to put in a field of that display quantity: one decimal more than the
+ * quantity's figures show, so a typed value survives the round trip through SI.
+ */
+export function fieldValue(si: number, quantity: DisplayQuantity): number {
+  const factor = 10 ** (quantity.decimals + 1)
+  return Math.round(quantity.toDisplay(si) * factor) / factor
+}

@@ -1,4 +1,5 @@
 import type { z } from 'zod'
+import { fieldValue, milliOhm, percentOfOne, type DisplayQuantity } from '@/components/bench/units'
 import {
   accessoriesApi,
   amplifiersApi,
@@ -33,6 +34,8 @@ export interface PartField {
   label: string
   type: 'number' | 'whole' | 'choice' | 'flag'
   unit?: string
+  /** Shown and typed in this quantity (mΩ, %), stored in the engine's unit; replaces `unit`. */
+  quantity?: DisplayQuantity
   options?: readonly string[]
   /** Shown under the field: where to find the value on a datasheet. */
   hint?: string
@@ -94,8 +97,9 @@ export const partKinds: PartKind[] = [
         key: 'cellResistanceOhm',
         label: 'Cell resistance',
         type: 'number',
-        unit: 'ohm',
-        hint: 'DC internal resistance, e.g. 0.022 for 22 mΩ.',
+        // As the bench and datasheets give it.
+        quantity: milliOhm,
+        hint: 'DC internal resistance of one cell.',
       },
       { key: 'cutoffCellV', label: 'Cutoff per cell', type: 'number', unit: 'V' },
       { key: 'healthPct', label: 'Health', type: 'number', unit: '%' },
@@ -139,7 +143,7 @@ export const partKinds: PartKind[] = [
       { key: 'supplyMaxV', label: 'Maximum supply', type: 'number', unit: 'V' },
       { key: 'lockoutV', label: 'Lock-out (undervoltage mute)', type: 'number', unit: 'V' },
       { key: 'idleCurrentA', label: 'Idle current', type: 'number', unit: 'A' },
-      { key: 'efficiency', label: 'Efficiency', type: 'number', hint: 'A fraction, e.g. 0.88.' },
+      { key: 'efficiency', label: 'Efficiency', type: 'number', quantity: percentOfOne },
       { key: 'minLoadOhm', label: 'Minimum load', type: 'number', unit: 'ohm' },
     ],
     columns: ['class', 'channels', 'ratedPowerW', 'ratedLoadOhm', 'ratedSupplyV'],
@@ -191,7 +195,7 @@ export const partKinds: PartKind[] = [
         key: 'efficiency',
         label: 'Converter efficiency',
         type: 'number',
-        hint: 'A fraction, e.g. 0.88.',
+        quantity: percentOfOne,
       },
       { key: 'idleW', label: 'Converter idle draw', type: 'number', unit: 'W' },
     ],
@@ -209,6 +213,13 @@ export function fieldOf(kind: PartKind, key: string): PartField | undefined {
 export function shownValue(field: PartField | undefined, value: unknown): string {
   if (value === undefined || value === null) return '—'
   if (typeof value === 'boolean') return value ? 'yes' : 'no'
+  if (typeof value === 'number' && field?.quantity) {
+    return `${fieldValue(value, field.quantity)}\u00a0${field.quantity.unit}`
+  }
   if (typeof value === 'number' && field?.unit) return `${value}\u00a0${field.unit}`
   return String(value)
 }
+
+/** The unit a field is shown and typed in. */
+export const unitOf = (field: PartField | undefined): string | undefined =>
+  field?.quantity?.unit ?? field?.unit
