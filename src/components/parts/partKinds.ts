@@ -1,5 +1,10 @@
 import type { z } from 'zod'
-import { fieldValue, milliOhm, percentOfOne, type DisplayQuantity } from '@/components/bench/units'
+import {
+  milliOhm,
+  percentOfOne,
+  showQuantity,
+  type DisplayQuantity,
+} from '@/components/bench/units'
 import {
   accessoriesApi,
   amplifiersApi,
@@ -213,9 +218,7 @@ export function fieldOf(kind: PartKind, key: string): PartField | undefined {
 export function shownValue(field: PartField | undefined, value: unknown): string {
   if (value === undefined || value === null) return '—'
   if (typeof value === 'boolean') return value ? 'yes' : 'no'
-  if (typeof value === 'number' && field?.quantity) {
-    return `${fieldValue(value, field.quantity)}\u00a0${field.quantity.unit}`
-  }
+  if (typeof value === 'number' && field?.quantity) return showQuantity(value, field.quantity)
   if (typeof value === 'number' && field?.unit) return `${value}\u00a0${field.unit}`
   return String(value)
 }
