@@ -172,10 +172,24 @@ export interface RunTotals {
   clipsFromS: number | null
 }
 
+/** The run's totals where a segment ended (or where the run stopped inside it). */
+export interface SegmentEnd {
+  deliveredJ: number
+  chemicalJ: number
+  elapsedS: number
+  /** The pack in the rig at that moment (1 is the first). */
+  pack: number
+}
+
 export interface RunOutcome extends RunTotals {
   stopReason: StopReason
   elapsedS: number
   packsUsed: number
+  /**
+   * One entry per segment the run reached, in order; the run's totals as each ended. A swap at the
+   * very end of a segment comes after its entry (the pack that ran it is the one named).
+   */
+  segmentEnds: SegmentEnd[]
   swaps: { atMinute: number; pack: number }[]
   packRuns: PackRunRecord[]
   timeline: TimelineRecorder | null
@@ -263,6 +277,17 @@ export function runRig(
   }
   let prefix: RunOutcome | null = null
   let stepCount = 0
+  const segmentEnds: SegmentEnd[] = []
+  /** Records where segment `index` ended, once: the first call for it wins. */
+  const endSegment = (index: number) => {
+    if (segmentEnds.length !== index) return
+    segmentEnds.push({
+      deliveredJ: totals.deliveredJ,
+      chemicalJ: totals.chemicalJ,
+      elapsedS: at.elapsedS,
+      pack: at.pack,
+    })
+  }
 
   const sample = (
     voltageV: number,
@@ -343,6 +368,7 @@ export function runRig(
           stopReason: reason,
           elapsedS: at.elapsedS,
           packsUsed: at.pack,
+          segmentEnds: segmentEnds.slice(),
           swaps: swaps.slice(),
           packRuns: packRuns.slice(),
           timeline: null,
@@ -373,6 +399,7 @@ export function runRig(
       at.elapsedS += segment.durationS
       sample(openV, 0, openV, 'off', segment.headroomPeakW, true)
       at.forceNextSample = true
+      endSegment(s)
       continue
     }
     at.forceNextSample = true
@@ -389,7 +416,10 @@ export function runRig(
         stop = 'amp-lockout'
       }
       if (stop !== null) {
-        if (!handleStop(stop, segment)) break segmentLoop
+        if (!handleStop(stop, segment)) {
+          endSegment(s)
+          break segmentLoop
+        }
         continue
       }
       const currentA = point.currentA
@@ -450,10 +480,15 @@ export function runRig(
       if (soc < totals.lowestSoc) totals.lowestSoc = soc
       at.elapsedS += stepS
       remainingS -= stepS
+      if (remainingS <= 1e-9) endSegment(s)
       // A pack that empties exactly as the schedule ends needs no successor.
       const workLeft = remainingS > 1e-9 || s < segments.length - 1
-      if (emptied && workLeft && !handleStop('pack-empty', segment)) break segmentLoop
+      if (emptied && workLeft && !handleStop('pack-empty', segment)) {
+        endSegment(s)
+        break segmentLoop
+      }
     }
+    endSegment(s)
   }
 
   const finalReason: StopReason =
@@ -465,6 +500,7 @@ export function runRig(
     stopReason: finalReason,
     elapsedS: at.elapsedS,
     packsUsed: at.pack,
+    segmentEnds,
     swaps,
     packRuns,
     timeline,

@@ -1,7 +1,6 @@
-// Energy per segment of a day. The engine reports a run's totals; running it on each prefix of
-// the schedule (segments 1..k) gives the totals at the end of segment k, and the differences are
-// the segments' shares. Each prefix run is the same deterministic run cut short, so the shares add
-// up to the day's total exactly. Cost grows with segments × steps: fine for a day's plan.
+// Energy per segment of a day, from one run: the run notes its totals as each segment ends
+// (RunOutcome.segmentEnds), and the differences are the segments' shares, so they add up to the
+// day's total exactly.
 import { prepareRig, runPrepared } from '../engine'
 import type { EstimateRequest, SegmentState } from '../schemas/estimate'
 
@@ -27,24 +26,14 @@ export function segmentEnergies(request: EstimateRequest): SegmentEnergy[] {
   const prepared = prepareRig(request)
   const schedule = prepared.resolved.schedule
   if (!schedule) return []
+  const { segmentEnds } = runPrepared(prepared, prepared.resolved.pack.count, false)
   const rows: SegmentEnergy[] = []
   let startMinute = 0
-  let before = { deliveredJ: 0, chemicalJ: 0, elapsedS: 0 }
-  let stopped = false
+  let before = { deliveredJ: 0, chemicalJ: 0, elapsedS: 0, pack: 1 }
   for (let index = 0; index < schedule.length; index++) {
     const segment = schedule[index]!
-    let after = before
-    let packAtEnd = rows[rows.length - 1]?.packAtEnd ?? 1
-    if (!stopped) {
-      const outcome = runPrepared(
-        { ...prepared, segments: prepared.segments.slice(0, index + 1) },
-        prepared.resolved.pack.count,
-        false,
-      )
-      after = outcome
-      packAtEnd = outcome.packsUsed
-      stopped = outcome.stopReason !== 'schedule-end'
-    }
+    // Segments after the run stopped get nothing; the pack named is the one it stopped with.
+    const after = segmentEnds[index] ?? before
     const ranS = after.elapsedS - before.elapsedS
     const deliveredJ = after.deliveredJ - before.deliveredJ
     rows.push({
@@ -57,7 +46,7 @@ export function segmentEnergies(request: EstimateRequest): SegmentEnergy[] {
       deliveredWh: deliveredJ / 3600,
       drawnWh: (after.chemicalJ - before.chemicalJ) / 3600,
       averageDrawW: ranS > 0 ? deliveredJ / ranS : 0,
-      packAtEnd,
+      packAtEnd: after.pack,
     })
     startMinute += segment.minutes
     before = after

@@ -4,6 +4,7 @@ import { afterAll, bench, describe } from 'vitest'
 import { comparePacks } from '../../shared/engine/compare'
 import { estimate } from '../../shared/engine/estimate'
 import { MAX_STEP_S } from '../../shared/engine/run'
+import { segmentEnergies } from '../../shared/plans/segment-energy'
 import { packSchema } from '../../shared/schemas/estimate'
 import { columnRig, variant } from '../shared/rig-fixtures'
 
@@ -19,6 +20,16 @@ const twelveHourDay = variant(column, {
     { label: 'Speeches', minutes: 60, crestFactorDb: 14, peakBelowClipDb: 6 },
     { label: 'Finale', minutes: 60, peakBelowClipDb: 0 },
   ],
+})
+
+// A festival week as a plan: seven days of the schedule above, each ended by a night off (42
+// segments), on enough packs to last it.
+const week = variant(twelveHourDay, {
+  pack: { ...twelveHourDay.pack, count: 20 },
+  schedule: Array.from({ length: 7 }, () => [
+    ...twelveHourDay.schedule!,
+    { label: 'Night', minutes: 720, state: 'off' as const },
+  ]).flat(),
 })
 
 const fortyPacks = Array.from({ length: 40 }, (_, index) =>
@@ -37,6 +48,7 @@ const fortyPacks = Array.from({ length: 40 }, (_, index) =>
 const steps = (12 * 3600) / MAX_STEP_S
 const estimateMs: number[] = []
 const compareMs: number[] = []
+const weekSegmentsMs: number[] = []
 
 function timed(samples: number[], work: () => unknown): void {
   const start = performance.now()
@@ -54,7 +66,8 @@ afterAll(() => {
   console.log(
     [
       `Engine medians (samples include warm-up): estimate of a 12-hour three-pack day ${median(estimateMs).toFixed(3)} ms (target ≤ 1 ms, ${estimateMs.length} runs);`,
-      `one rig against 40 packs ${median(compareMs).toFixed(1)} ms (target ≤ 40 ms, ${compareMs.length} runs).`,
+      `one rig against 40 packs ${median(compareMs).toFixed(1)} ms (target ≤ 40 ms, ${compareMs.length} runs);`,
+      `energy per segment of a ${week.schedule!.length}-segment week ${median(weekSegmentsMs).toFixed(1)} ms (${weekSegmentsMs.length} runs).`,
     ].join('\n'),
   )
 })
@@ -77,5 +90,11 @@ describe(`engine (12 h at ${MAX_STEP_S} s steps: up to ${steps} steps per run)`,
       iterations: 30,
       warmupIterations: 5,
     },
+  )
+
+  bench(
+    `segmentEnergies: a ${week.schedule!.length}-segment week`,
+    () => timed(weekSegmentsMs, () => segmentEnergies(week)),
+    { time: 2000, iterations: 20, warmupIterations: 3 },
   )
 })

@@ -1,9 +1,10 @@
+import fc from 'fast-check'
 import { describe, expect, it } from 'vitest'
-import { estimate } from '../../shared/engine'
+import { estimate, prepareRig, runPrepared } from '../../shared/engine'
 import { MAX_STEP_S } from '../../shared/engine/run'
 import { clockTimeAfter } from '../../shared/plans/clock'
 import { segmentEnergies } from '../../shared/plans/segment-energy'
-import type { ScheduleSegment } from '../../shared/schemas/estimate'
+import type { EstimateRequest, ScheduleSegment } from '../../shared/schemas/estimate'
 import { columnRig, constantCurrentRig, variant } from './rig-fixtures'
 
 // A day's run as an event plan uses it: segments on, idle and off, swaps between packs on hand,
@@ -154,4 +155,92 @@ describe('segment energies when the day does not last', () => {
     expect(rows[2]!.deliveredWh).toBe(0)
     expect(rows[1]!.startMinute).toBe(180)
   })
+})
+
+/**
+ * The long way round, as a check: run the day on each prefix of the schedule (segments 1..k); the
+ * totals at the end of prefix k are those at the end of segment k, since each prefix is the same
+ * deterministic run cut short.
+ */
+function energiesByPrefixRuns(request: EstimateRequest) {
+  const prepared = prepareRig(request)
+  const rows: { ranS: number; deliveredJ: number; chemicalJ: number; pack: number }[] = []
+  let before = { deliveredJ: 0, chemicalJ: 0, elapsedS: 0, pack: 1 }
+  let stopped = false
+  for (let index = 0; index < prepared.segments.length; index++) {
+    let after = before
+    if (!stopped) {
+      const outcome = runPrepared(
+        { ...prepared, segments: prepared.segments.slice(0, index + 1) },
+        prepared.resolved.pack.count,
+        false,
+      )
+      after = { ...outcome, pack: outcome.packsUsed }
+      stopped = outcome.stopReason !== 'schedule-end'
+    }
+    rows.push({
+      ranS: after.elapsedS - before.elapsedS,
+      deliveredJ: after.deliveredJ - before.deliveredJ,
+      chemicalJ: after.chemicalJ - before.chemicalJ,
+      pack: after.pack,
+    })
+    before = after
+  }
+  return rows
+}
+
+describe('segment energies from one run', () => {
+  const segmentArbitrary = fc.record({
+    label: fc.constant('Segment'),
+    minutes: fc.integer({ min: 1, max: 300 }),
+    state: fc.constantFrom('on', 'idle', 'off'),
+    peakBelowClipDb: fc.double({ min: 0, max: 12, noNaN: true }),
+  })
+  const dayArbitrary = fc.record({
+    schedule: fc.array(segmentArbitrary, { minLength: 1, maxLength: 6 }),
+    count: fc.integer({ min: 1, max: 3 }),
+    cellCapacityAh: fc.double({ min: 0.5, max: 3, noNaN: true }),
+    swapAtBreak: fc.boolean(),
+  })
+
+  it('name the pack that ran a segment when it empties exactly as the segment ends', () => {
+    // Source: definition of the ampere-hour: a 4 Ah pack at 1 A lasts exactly 240 minutes, so the
+    // first pack empties as the morning ends and the second runs the afternoon.
+    const request = steadyAmpDay([
+      { label: 'Morning', minutes: 240, ...playingNothing },
+      { label: 'Afternoon', minutes: 60, ...playingNothing },
+    ])
+    const rows = segmentEnergies(request)
+    expect(rows.map((row) => row.packAtEnd)).toEqual([1, 2])
+    expect(rows.map((row) => row.ranMinutes)).toEqual([240, 60])
+    expect(energiesByPrefixRuns(request).map((row) => row.pack)).toEqual([1, 2])
+  })
+
+  it('match running each prefix of the schedule, over random days', () => {
+    // Source: ours (the definition above): a segment's share is the difference between the run's
+    // totals at its end and at its start.
+    fc.assert(
+      fc.property(dayArbitrary, (day) => {
+        const base = columnRig()
+        const request = variant(base, {
+          pack: { ...base.pack, count: day.count, cellCapacityAh: day.cellCapacityAh },
+          schedule: day.schedule,
+          swapPolicy: day.swapAtBreak
+            ? { mode: 'at-break-below', belowSocPct: 40 }
+            : { mode: 'when-empty' },
+        })
+        const rows = segmentEnergies(request)
+        const expected = energiesByPrefixRuns(request)
+        expect(rows).toHaveLength(expected.length)
+        rows.forEach((row, index) => {
+          const reference = expected[index]!
+          expect(row.ranMinutes).toBeCloseTo(reference.ranS / 60, 9)
+          expect(row.deliveredWh).toBeCloseTo(reference.deliveredJ / 3600, 9)
+          expect(row.drawnWh).toBeCloseTo(reference.chemicalJ / 3600, 9)
+          expect(row.packAtEnd).toBe(reference.pack)
+        })
+      }),
+      { numRuns: 60, seed: Number(process.env.PROPERTY_SEED ?? 20261202) },
+    )
+  }, 60_000)
 })
