@@ -344,6 +344,7 @@ export function summarise(prepared: PreparedRig, outcome: RunOutcome): EstimateR
     maxDischargeA: resolved.pack.maxDischargeA,
     leadDropPct,
     hasLeads: resolved.leads !== null,
+    leadAreaMm2: resolved.leads ? resolved.leads.areaMm2 : null,
     dropoutRisk,
     dropout,
     minPeakSupplyV: peak.supplyV,

@@ -1,9 +1,11 @@
 // Warnings: stable kebab-case codes (screens and saved plans key on them), and messages that say
 // what to change. Cautions defer to local codes and licensed practice where the work can hurt.
 import type { ConverterResult, EstimateWarning, Severity, StopReason } from '../schemas/estimate'
+import { areaMm2ToAwg } from '../units'
 import type { Chemistry } from './chemistry'
 import { CHEMISTRY_DATA } from './chemistry'
 import { LINEAR_HEAT_LIMIT_W } from './converters'
+import { leadAreaForCurrentMm2, leadCurrentRatingA } from './leads'
 import type { DropoutOnset } from './dropout'
 import { IMPEDANCE_DIP_FACTOR } from './speakers'
 import { CHILDREN_CAUTION_DB, NIOSH_REL_DBA, WHO_VENUE_LAEQ_DB } from './sound'
@@ -54,6 +56,10 @@ export const WARNING_CATALOGUE = {
   'pack-rating-unknown': {
     severity: 'info',
     meaning: "The pack's maximum discharge current is not given, so currents are not checked.",
+  },
+  'lead-over-rating': {
+    severity: 'danger',
+    meaning: 'The lead carries more current than a cord of its size is rated for: it runs hot.',
   },
   'lead-drop-high': {
     severity: 'caution',
@@ -165,6 +171,8 @@ export interface WarningFacts {
   maxDischargeA: number | null
   leadDropPct: { average: number; peak: number }
   hasLeads: boolean
+  /** The lead's cross-section, when leads are given. */
+  leadAreaMm2: number | null
   dropoutRisk: boolean
   dropout: DropoutOnset | null
   minPeakSupplyV: number
@@ -181,6 +189,16 @@ export interface WarningFacts {
 }
 
 const fixed = (value: number, digits = 1) => value.toFixed(digits)
+
+/**
+ * A cross-section in both systems, "1.5 mm² (15 AWG)": the nearest gauge, or for a size to fit at
+ * least, the next thicker one (a lower number).
+ */
+function wireSize(areaMm2: number, atLeast = false): string {
+  const area = areaMm2 < 1 ? areaMm2.toFixed(2) : fixed(areaMm2)
+  const awg = areaMm2ToAwg(areaMm2)
+  return `${area} mm² (${atLeast ? Math.floor(awg + 1e-6) : Math.round(awg)} AWG)`
+}
 
 function stopInWords(reason: StopReason): string {
   switch (reason) {
@@ -267,6 +285,18 @@ export function collectWarnings(facts: WarningFacts): EstimateWarning[] {
       'peak-current-over-rating',
       `On programme peaks the rig draws ${fixed(facts.peakCurrentA)} A, above the pack's ${fixed(facts.maxDischargeA)} A rating: lower the level or use a pack rated for more current; its protection may cut out on bass.`,
     )
+  }
+  if (facts.leadAreaMm2 !== null) {
+    const ratingA = leadCurrentRatingA(facts.leadAreaMm2)
+    // Copper heats over minutes, so the current that counts is the highest average of a step,
+    // not the peaks of a bass note.
+    if (facts.maxAverageCurrentA > ratingA) {
+      const neededMm2 = leadAreaForCurrentMm2(facts.maxAverageCurrentA)
+      add(
+        'lead-over-rating',
+        `The lead carries up to ${fixed(facts.maxAverageCurrentA)} A, but a ${wireSize(facts.leadAreaMm2)} cord is rated for only about ${fixed(ratingA)} A, so it will run hot: fit leads of at least ${wireSize(neededMm2, true)}, with a fuse rated for the lead close to the pack.`,
+      )
+    }
   }
   if (facts.hasLeads && facts.leadDropPct.average > LEAD_DROP_LIMIT_PCT) {
     add(

@@ -69,6 +69,22 @@ describe('warnings', () => {
     expect(warningFor(peaksOnly, 'peak-current-over-rating')?.severity).toBe('caution')
   })
 
+  it('warn when the lead carries more than a cord of its size is rated for, naming the size', () => {
+    // Source: IEC 60335-1 Table 11 (from memory): 16 AWG (1.3 mm²) is rated 10 A, far more than
+    // this rig's ampere or so; 26 AWG (0.13 mm², far below the table's 0.5 mm² for 3 A) is not.
+    const rig = columnRig()
+    const loud = { programme: { crestFactorDb: 9, peakBelowClipDb: 0 } }
+    const thin = estimate(variant(rig, { leads: { awg: 26, lengthM: 1 }, ...loud }))
+    const found = thin.warnings.find((warning) => warning.code === 'lead-over-rating')
+    expect(found?.severity).toBe('danger')
+    expect(thin.averageCurrentA).toBeGreaterThan(0.8)
+    expect(found?.message).toMatch(/at least \d+(\.\d+)? mm² \(\d+ AWG\)/)
+    expect(found?.message).toMatch(/fuse/)
+    expect(
+      warningFor(variant(rig, { leads: { awg: 16, lengthM: 1 }, ...loud }), 'lead-over-rating'),
+    ).toBeUndefined()
+  })
+
   it('warn when the lead drops more than 3 %', () => {
     // Source: common practice: keep DC supply leads under 3 % drop; 26 AWG over 5 m is about
     // 1.4 ohm round trip (ASTM B258, IEC 60028)
