@@ -25,7 +25,7 @@ function quoted(names: { name: string }[]): string {
 
 /**
  * A part of the team's library: the body is the engine's part fields plus name and notes, kept as
- * the `spec` column. Deleting a part that rigs still use is refused for editors (409 naming the
+ * the `spec` column. Deleting a part that rigs still use is refused for editors (403 naming the
  * rigs); an admin's delete detaches it from those rigs in the same transaction and says which.
  */
 export function partDefinition<Table extends PartTable, Body extends PartBody>(
@@ -54,9 +54,10 @@ export function partDefinition<Table extends PartTable, Body extends PartBody>(
     beforeDelete: (scope, row, membership) => {
       const using = usage.rigsUsing(scope.tx, scope.teamId, row.id)
       if (using.length === 0) return undefined
+      // api.md: deleting a part in use is an admin's call (it detaches the part from the rigs).
       if (membership.role !== 'admin') {
         throw new ApiError(
-          409,
+          403,
           'part-in-use',
           `This ${noun} is used by ${using.length === 1 ? 'the rig' : `${using.length} rigs:`} ${quoted(using)}. Take it out of ${using.length === 1 ? 'that rig' : 'those rigs'} first, or ask a team admin to delete it (which detaches it and leaves the rigs their copied values).`,
         )

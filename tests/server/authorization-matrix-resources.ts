@@ -11,7 +11,7 @@ import type { MatrixRow } from './authorization-matrix'
 
 // Rows of the authorization matrix for the team's parts and rigs. Source: design/api.md
 // ("Team-owned resources": viewers read, editors write, admin for deleting a part in use) and
-// issue 6. The fixture's parts are all used by its rig, so an editor's delete of one is a 409.
+// issue 6. The fixture's parts are all used by its rig, so an editor's delete of one is a 403.
 
 /** The matrix's own helper: members by role, outsiders 404, signed-out 401. */
 type TeamExpect = (viewer: number, editor: number, admin: number) => Record<Actor, number>
@@ -36,7 +36,7 @@ function resourceRows(
 }
 
 export function resourceMatrixRows(team: TeamExpect): MatrixRow[] {
-  const partInUse = team(403, 409, 200)
+  const partInUse = team(403, 403, 200)
   const rigBody = { name: 'Announcer box', spec: plainRigSpec }
   return [
     ...resourceRows(team, 'packs', 'packId', packBody, partInUse),

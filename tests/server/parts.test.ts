@@ -210,8 +210,9 @@ describe('duplicating and deleting parts', () => {
     await editor.get(`/amplifiers/${spare.body.id}`).expect(404)
   })
 
-  it("refuses an editor's delete of a part in use with 409 naming the rig", async () => {
-    const response = await editor.delete(`/packs/${fixture.placeholders.packId}`).expect(409)
+  it("refuses an editor's delete of a part in use with 403 naming the rig", async () => {
+    // Source: design/api.md: DELETE needs an admin for parts in use (403 not allowed).
+    const response = await editor.delete(`/packs/${fixture.placeholders.packId}`).expect(403)
     expect(response.body.error.code).toBe('part-in-use')
     expect(response.body.error.message).toContain('"Market stage column"')
     await editor.get(`/packs/${fixture.placeholders.packId}`).expect(200)
@@ -234,7 +235,7 @@ describe('duplicating and deleting parts', () => {
 
   it("detaches an accessory through the link table on an admin's delete", async () => {
     const { db } = fixture.testApp.database
-    await editor.delete(`/accessories/${fixture.placeholders.accessoryId}`).expect(409)
+    await editor.delete(`/accessories/${fixture.placeholders.accessoryId}`).expect(403)
     await admin.delete(`/accessories/${fixture.placeholders.accessoryId}`).expect(200)
     const rig = await admin.get(`/rigs/${fixture.placeholders.rigId}`).expect(200)
     expect(rig.body.accessoryIds).toEqual([])
