@@ -12,6 +12,7 @@ import { rowIdParam } from '../http/params'
 import { itemMeta, peopleOf } from '../resources/owned-table'
 import type { ResourceContext } from '../resources/resource-definition'
 import { packDefinition } from './packs'
+import { carryPackHealthToRigs } from './rigs'
 import {
   DISCHARGE_LOG_FIELD,
   acceptDischargeLogSchema,
@@ -30,8 +31,9 @@ import type { PackItem } from '../../shared/schemas/resources'
  *   GET    /                viewer  → { items, total }, newest first, without points
  *   GET    /:logId          viewer  → log with its points
  *   DELETE /:logId          editor  → 204 (a health figure already accepted stays with the pack)
- *   POST   /:logId/accept   editor  { version? } → { pack, log }: the pack's health figure
- *                                   becomes the log's, in one transaction, pack version + 1
+ *   POST   /:logId/accept   editor  { version? } → { pack, log, updatedRigs }: the pack's health
+ *                                   figure becomes the log's, and so does that of the rigs using
+ *                                   the pack, in one transaction (pack and rig versions + 1)
  */
 
 type LogRow = typeof dischargeLogs.$inferSelect
@@ -211,10 +213,8 @@ export function dischargeLogsRouter(context: ResourceContext): Router {
       if (!log.analysis.reachedCutoff) {
         throw new ApiError(400, 'log-incomplete', noteFor(log.analysis) ?? logNotFound)
       }
-      const checked = packSchema.safeParse({
-        ...pack.spec,
-        healthPct: roundHealthPct(log.analysis.healthPct),
-      })
+      const healthPct = roundHealthPct(log.analysis.healthPct)
+      const checked = packSchema.safeParse({ ...pack.spec, healthPct })
       if (!checked.success) {
         const issue = checked.error.issues[0]
         throw new ApiError(
@@ -226,7 +226,7 @@ export function dischargeLogsRouter(context: ResourceContext): Router {
       }
       tx.update(packs)
         .set({
-          spec: { ...pack.spec, healthPct: checked.data.healthPct },
+          spec: { ...pack.spec, healthPct },
           version: pack.version + 1,
           updatedAtMs: nowMs,
           updatedByUserId: userId,
@@ -237,9 +237,11 @@ export function dischargeLogsRouter(context: ResourceContext): Router {
         .set({ acceptedAtMs: nowMs })
         .where(eq(dischargeLogs.id, log.id))
         .run()
+      const updatedRigs = carryPackHealthToRigs(tx, teamId, packId, healthPct, { nowMs, userId })
       return {
         pack: packItemOf(tx, requirePack(tx, teamId, packId)),
         log: detailOf(requireLog(tx, teamId, packId, logId)),
+        updatedRigs,
       }
     })
     res.json(answer)

@@ -27,13 +27,15 @@ export const acceptDischargeLog = (
   logId: number,
   input: AcceptDischargeLogInput,
 ) =>
-  apiRequest<{ pack: PackItem; log: DischargeLogDetail }>(
-    `${base(teamId, packId)}/${logId}/accept`,
-    {
-      method: 'POST',
-      body: input,
-    },
-  )
+  apiRequest<{
+    pack: PackItem
+    log: DischargeLogDetail
+    /** The rigs using the pack, which now run with its measured health too. */
+    updatedRigs: { id: number; name: string }[]
+  }>(`${base(teamId, packId)}/${logId}/accept`, {
+    method: 'POST',
+    body: input,
+  })
 
 function requestError(status: number, payload: unknown): ApiRequestError {
   const error = (payload as { error?: { code?: string; message?: string } } | undefined)?.error

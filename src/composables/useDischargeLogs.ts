@@ -102,9 +102,10 @@ export function useDischargeLogs(packId: Ref<number | undefined>) {
   }
 
   /** Makes the log's health the pack's; sends the pack version on show (409 if it is stale). */
-  async function accept(logId: number): Promise<void> {
+  /** Returns the names of the rigs that took the health figure too. */
+  async function accept(logId: number): Promise<string[]> {
     const at = ids()
-    if (!at || !pack.value) return
+    if (!at || !pack.value) return []
     const answer = await logsApi.acceptDischargeLog(at.team, at.pack, logId, {
       version: pack.value.version,
     })
@@ -112,6 +113,7 @@ export function useDischargeLogs(packId: Ref<number | undefined>) {
     const { points: _points, ...summary } = answer.log
     logs.value = logs.value.map((log) => (log.id === logId ? summary : log))
     if (selected.value?.id === logId) selected.value = answer.log
+    return answer.updatedRigs.map((rig) => rig.name)
   }
 
   watch([teamId, packId], load, { immediate: true })

@@ -8,6 +8,7 @@ import {
   plainCells,
   plainHeader,
 } from '../helpers/discharge-logs'
+import { planBody } from '../helpers/plan-fixture'
 import { packBody, teamApi } from '../helpers/resource-fixture'
 import { createTeamFixture, type SignedInActor, type TeamFixture } from '../helpers/team-fixture'
 
@@ -277,6 +278,39 @@ describe('accepting a log as the pack health figure', () => {
     const after = await readPack()
     expect(after).toMatchObject({ version: 2, healthPct: 80, seriesCells: 10, cellCapacityAh: 2.5 })
     expect(after.updatedBy).toMatchObject({ name: 'editor' })
+  })
+
+  it('carries the health figure into the rigs using the pack, and works out their plans again', async () => {
+    // Source: definition of state of health: 80 % health is 80 % of the rated capacity, so the
+    // rig's runtime falls (the engine's run is energy-limited here, to within its step).
+    const rigPath = `/rigs/${fixture.placeholders.rigId}`
+    const rigBefore = (await editorApi().get(rigPath).expect(200)).body
+    const plan = await editorApi()
+      .post('/plans', {
+        ...planBody,
+        rigId: Number(fixture.placeholders.rigId),
+        // One pack for a day it cannot last: the plan's figure is the pack's runtime.
+        packCount: 1,
+        schedule: [{ label: 'All day', minutes: 1440, state: 'on', peakBelowClipDb: 0 }],
+      })
+      .expect(201)
+    const planPath = `/plans/${plan.body.id}`
+    const planBefore = plan.body
+    expect(rigBefore.packId).toBe(Number(packId))
+    const created = await upload(csvOf(twoAmpsTwoHours, plainHeader, plainCells)).expect(201)
+    const accepted = await editorApi()
+      .post(`/packs/${packId}/discharge-logs/${created.body.id}/accept`, { version: 1 })
+      .expect(200)
+    expect(accepted.body.updatedRigs).toEqual([
+      { id: Number(fixture.placeholders.rigId), name: rigBefore.name },
+    ])
+    const rigAfter = (await editorApi().get(rigPath).expect(200)).body
+    expect(rigAfter.version).toBe(rigBefore.version + 1)
+    expect(rigAfter.spec.pack.healthPct).toBe(80)
+    expect(rigAfter.summary.runtimeHours).toBeLessThan(rigBefore.summary.runtimeHours)
+    const planAfter = (await editorApi().get(planPath).expect(200)).body
+    expect(planBefore.summary.lasts).toBe(false)
+    expect(planAfter.summary.runtimeHours).toBeLessThan(planBefore.summary.runtimeHours)
   })
 
   it('refuses a stale pack version with 409 and changes nothing', async () => {
