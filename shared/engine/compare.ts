@@ -31,6 +31,8 @@ export interface PackComparisonRow {
   costPerMusicHour: number | null
   clipPowerFullW: number
   clipPowerCutoffW: number
+  /** The least headroom of the programme's peaks below clipping over the run (negative: clips). */
+  headroomMinimumDb: number
   converterNeeds: { label: string; verdict: ConverterVerdict; fits: boolean; advice: string }[]
   /** Accessories that cannot be wired straight to this pack. */
   convertersNeeded: number
@@ -106,6 +108,7 @@ export function comparePacks(
         price === null || musicHoursPerCharge <= 0 ? null : price / musicHoursPerCharge,
       clipPowerFullW: result.clipPowerW.full,
       clipPowerCutoffW: result.clipPowerW.cutoff,
+      headroomMinimumDb: result.headroom.minimumDb,
       converterNeeds: result.converters.map(({ label, verdict, fits, advice }) => ({
         label,
         verdict,

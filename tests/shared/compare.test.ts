@@ -43,6 +43,7 @@ describe('pack comparison', () => {
     const direct = estimate(variant(day, { pack: packs[1]! }))
     expect(large.runtimeHours).toBe(direct.runtimeHours)
     expect(large.clipPowerCutoffW).toBe(direct.clipPowerW.cutoff)
+    expect(large.headroomMinimumDb).toBe(direct.headroom.minimumDb)
     expect(large.costPerMusicHour).toBeCloseTo(90 / large.musicHoursPerCharge, 9)
     expect(large.converterNeeds[0]?.verdict).toBe('step-down')
     expect(large.convertersNeeded).toBe(1)
