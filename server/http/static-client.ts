@@ -18,7 +18,17 @@ export function staticClient(distDir: string): Router | undefined {
       fallthrough: false,
     }),
   )
-  router.use(express.static(distDir, { index: false, maxAge: '1h' }))
+  router.use(
+    express.static(distDir, {
+      index: false,
+      maxAge: '1h',
+      // The service worker and its loader are checked on every visit, so an update reaches
+      // the field at the next load.
+      setHeaders: (res, path) => {
+        if (/[\\/](sw|registerSW)\.js$/.test(path)) res.setHeader('Cache-Control', 'no-cache')
+      },
+    }),
+  )
   router.get('/{*splat}', (req, res, next) => {
     if (req.path.startsWith('/api/')) return next()
     res.setHeader('Cache-Control', 'no-cache')

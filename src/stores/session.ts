@@ -2,6 +2,7 @@ import { defineStore } from 'pinia'
 import { computed, ref } from 'vue'
 import * as authApi from '@/api/auth'
 import { ApiRequestError } from '@/api/http'
+import { forgetOfflineAnswers } from '@/offline/apiCache'
 import type { MeResponse, TeamView } from '../../shared/schemas/account-responses'
 import type { SignInInput, SignUpInput } from '../../shared/schemas/auth'
 
@@ -38,9 +39,15 @@ export const useSessionStore = defineStore('session', () => {
     status.value = 'signed-in'
   }
 
-  function clear(): void {
+  function markSignedOut(): void {
     me.value = undefined
     status.value = 'signed-out'
+  }
+
+  /** The session has ended: also forget the answers kept for offline use. */
+  function clear(): void {
+    markSignedOut()
+    void forgetOfflineAnswers()
   }
 
   /** Asks the server who is signed in; an unreachable server counts as signed out. */
@@ -51,7 +58,8 @@ export const useSessionStore = defineStore('session', () => {
       else clear()
     } catch (error) {
       if (!(error instanceof ApiRequestError)) throw error
-      clear()
+      // Unreachable (offline with nothing kept): signed out for now, the kept answers stay.
+      markSignedOut()
     }
   }
 
