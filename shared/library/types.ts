@@ -21,6 +21,13 @@ export type LibraryPack = LibraryItem<PackSpec>
 export type LibraryAmplifier = LibraryItem<AmplifierSpec>
 export type LibrarySpeakers = LibraryItem<SpeakersSpec>
 export type LibraryAccessory = LibraryItem<AccessorySpec>
+/** A converter module: an accessory's converter settings (any feed but direct). */
+export type LibraryConverter = LibraryItem<
+  Pick<AccessorySpec, 'outputV' | 'efficiency' | 'idleW'> & {
+    feed: Exclude<AccessorySpec['feed'], 'direct'>
+    outputV: number
+  }
+>
 
 /** A complete rig the bench can start from. */
 export interface ExampleRig {

@@ -127,4 +127,29 @@ describe('the bench forms', { timeout: benchTestTimeoutMs }, () => {
     expect(store.draft.accessories.length).toBe(before)
     wrapper.unmount()
   })
+
+  it("fills an accessory's converter settings from a generic module", async () => {
+    const wrapper = await mountBench()
+    const store = useRigDraftStore()
+    const index = store.draft.accessories.length
+    await fieldInput(wrapper, 'accessories.add').setValue('acc-wireless-mic-receiver')
+    await flushPromises()
+    expect(fieldValue(wrapper, `accessories.${index}.feed`)).toBe('direct')
+    await fieldInput(wrapper, `accessories.${index}.converter`).setValue('conv-isolated-12v')
+    await flushPromises()
+    // Source: ours (shared/library/converters.ts, datasheet class of isolated modules).
+    expect(fieldValue(wrapper, `accessories.${index}.feed`)).toBe('isolated')
+    expect(fieldValue(wrapper, `accessories.${index}.outputV`)).toBe('12')
+    expect(fieldValue(wrapper, `accessories.${index}.efficiency`)).toBe('82')
+    expect(fieldValue(wrapper, `accessories.${index}.idleW`)).toBe('0.3')
+    // The accessory itself is untouched, and the picker shows its prompt again.
+    expect(store.draft.accessories[index]).toMatchObject({ powerW: 3, inputMinV: 11 })
+    expect(fieldValue(wrapper, `accessories.${index}.converter`)).toBe('')
+    // A linear regulator has no efficiency of its own (V_out/V_in, engine.md §6).
+    await fieldInput(wrapper, `accessories.${index}.converter`).setValue('conv-linear-5v')
+    await flushPromises()
+    expect(store.draft.accessories[index]!.efficiency).toBeUndefined()
+    expect(fieldValue(wrapper, `accessories.${index}.feed`)).toBe('linear')
+    wrapper.unmount()
+  })
 })

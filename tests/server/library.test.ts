@@ -1,6 +1,6 @@
 import request from 'supertest'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import type { z } from 'zod'
+import { z } from 'zod'
 import {
   accessorySchema,
   amplifierSchema,
@@ -15,11 +15,25 @@ beforeAll(() => {
 })
 afterAll(() => testApp.close())
 
+// A converter module is an accessory's converter settings: fitted to a device made for its output
+// voltage (±5 %), it must pass the accessory schema.
+const converterSchema = z.preprocess((part) => {
+  const outputV = (part as { outputV: number }).outputV
+  return {
+    label: 'Device',
+    powerW: 1,
+    inputMinV: outputV * 0.95,
+    inputMaxV: outputV * 1.05,
+    ...(part as object),
+  }
+}, accessorySchema)
+
 const lists: [string, z.ZodType][] = [
   ['packs', packSchema],
   ['amplifiers', amplifierSchema],
   ['speakers', speakersSchema],
   ['accessories', accessorySchema],
+  ['converters', converterSchema],
 ]
 
 describe('GET /api/v1/library/*', () => {
@@ -41,7 +55,7 @@ describe('GET /api/v1/library/*', () => {
   )
 
   it('answers an unknown list with the JSON 404 of the API', async () => {
-    const response = await request(testApp.app).get('/api/v1/library/converters').expect(404)
+    const response = await request(testApp.app).get('/api/v1/library/chargers').expect(404)
     expect(response.body.error.code).toBe('not-found')
   })
 

@@ -3,6 +3,7 @@ import { estimate } from '../../shared/engine'
 import {
   exampleRigs,
   libraryAccessories,
+  libraryConverters,
   libraryAmplifiers,
   libraryItem,
   libraryPacks,
@@ -43,12 +44,25 @@ describe('the built-in library', () => {
       expect(estimateRequestSchema.safeParse(rig.rig).success, rig.id).toBe(true)
   })
 
+  it('gives converter modules efficiencies in the range their datasheets give', () => {
+    // Source: common practice: small switching modules are 75–95 % efficient at a few watts;
+    // a linear regulator has none of its own (V_out/V_in, engine.md §6).
+    for (const { id, part } of libraryConverters) {
+      if (part.feed === 'linear') expect(part.efficiency, id).toBeUndefined()
+      else {
+        expect(part.efficiency, id).toBeGreaterThanOrEqual(0.75)
+        expect(part.efficiency, id).toBeLessThanOrEqual(0.95)
+      }
+    }
+  })
+
   it('gives every item a unique stable id and a plain label without trade marks', () => {
     const all = [
       ...libraryPacks,
       ...libraryAmplifiers,
       ...librarySpeakers,
       ...libraryAccessories,
+      ...libraryConverters,
       ...exampleRigs,
     ]
     const ids = all.map((item) => item.id)
