@@ -3,7 +3,7 @@ import { readFileSync } from 'node:fs'
 import { defineConfig } from 'vite'
 import vue from '@vitejs/plugin-vue'
 import { VitePWA } from 'vite-plugin-pwa'
-import { OFFLINE_API_CACHE } from './shared/offline'
+import { OFFLINE_API_CACHE } from './shared/offline.ts'
 
 const packageJson = JSON.parse(
   readFileSync(new URL('./package.json', import.meta.url), 'utf8'),
@@ -27,7 +27,6 @@ export default defineConfig({
         globPatterns: ['**/*.{js,css,html,woff2,svg}'],
         // The password checker's word lists load only when a new password is typed.
         globIgnores: ['**/password-strength-*.js'],
-        maximumFileSizeToCacheInBytes: 3 * 1024 * 1024,
         navigateFallback: '/index.html',
         navigateFallbackDenylist: [/^\/api\//],
         cleanupOutdatedCaches: true,
