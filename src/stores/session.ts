@@ -44,7 +44,7 @@ export const useSessionStore = defineStore('session', () => {
     status.value = 'signed-out'
   }
 
-  /** The session has ended: also forget the answers kept for offline use. */
+  /** No session (ended, or none): also forget the account's answers kept for offline use. */
   function clear(): void {
     markSignedOut()
     void forgetOfflineAnswers()

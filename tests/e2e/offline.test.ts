@@ -1,11 +1,32 @@
 import { describe, expect, it } from 'vitest'
 import { seriousAxeViolations } from '../helpers/browser'
-import { submitSignIn, useAppUnderTest } from '../helpers/e2e-app'
+import { request } from 'playwright-core'
+import { demoPassword, submitSignIn, useAppUnderTest } from '../helpers/e2e-app'
 
 // Field-ready (design/product.md §8): a plan already open keeps working offline, its card too,
 // and signing out leaves none of the account's answers in the browser.
 
 const app = useAppUnderTest()
+
+/** A share link for the demo plan, made through the API as its editor. */
+async function makeShareLink(): Promise<string> {
+  const api = await request.newContext({ baseURL: app.server.url })
+  await api.post('/api/v1/auth/sign-in', {
+    data: { email: 'editor@alder-creek.example', password: demoPassword },
+    headers: { Origin: app.server.url },
+  })
+  const me = await (await api.get('/api/v1/auth/me')).json()
+  const teamId = me.teams[0].id as number
+  const plans = await (await api.get(`/api/v1/teams/${teamId}/plans`)).json()
+  const plan = plans.items.find((item: { name: string }) => item.name === 'Saturday market')
+  const link = await api.post(`/api/v1/teams/${teamId}/plans/${plan.id}/share-links`, {
+    data: { label: 'Gate volunteers' },
+    headers: { Origin: app.server.url },
+  })
+  const body = await link.json()
+  await api.dispose()
+  return body.url as string
+}
 
 describe('offline, in Chromium', () => {
   it('reloads an open plan and its card without a network, and forgets them at sign-out', async () => {
@@ -42,13 +63,48 @@ describe('offline, in Chromium', () => {
 
     await page.goto(planUrl)
     await page.getByRole('heading', { name: 'Saturday market' }).waitFor()
-    expect(await page.evaluate(() => caches.has('loudhour-api'))).toBe(true)
+    const keptPaths = () =>
+      page.evaluate(async () => {
+        const cache = await caches.open('loudhour-api')
+        return (await cache.keys()).map((request) => new URL(request.url).pathname)
+      })
+    expect((await keptPaths()).some((path) => /\/plans\/\d+$/.test(path))).toBe(true)
     await page.getByRole('button', { name: 'Sam Creek (editor)' }).click()
     await page.getByText('Sign out').click()
     await page.waitForURL(`${app.server.url}/sign-in`)
+    // Only answers anyone may have (shared cards, the built-in library) may stay.
     await expect
-      .poll(() => page.evaluate(() => caches.has('loudhour-api')), { timeout: 5000 })
-      .toBe(false)
+      .poll(
+        async () =>
+          (await keptPaths()).filter(
+            (path) => !path.startsWith('/api/v1/shared/') && !path.startsWith('/api/v1/library/'),
+          ),
+        { timeout: 5000 },
+      )
+      .toEqual([])
     expect(app.browser.consoleErrors).toEqual([])
+  })
+
+  it('keeps a card shared by link for a volunteer without an account, offline too', async () => {
+    const { page, context } = app.browser
+    await context.clearCookies()
+    const sharedUrl = await makeShareLink()
+    await page.goto(sharedUrl)
+    const card = page.getByTestId('runtime-card')
+    await card.waitFor()
+    await page.waitForFunction(() => navigator.serviceWorker?.controller !== null)
+    await page.reload()
+    await card.waitFor()
+    const cardText = await card.textContent()
+    // Signed-out pages forget any account's answers; the shared card is no account's.
+    await page.goto(`${app.server.url}/plans`, { waitUntil: 'networkidle' })
+    await context.setOffline(true)
+    try {
+      await page.goto(sharedUrl)
+      await card.waitFor()
+      expect(await card.textContent()).toBe(cardText)
+    } finally {
+      await context.setOffline(false)
+    }
   })
 })
