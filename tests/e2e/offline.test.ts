@@ -1,6 +1,6 @@
+import { request } from 'playwright-core'
 import { describe, expect, it } from 'vitest'
 import { seriousAxeViolations } from '../helpers/browser'
-import { request } from 'playwright-core'
 import { demoPassword, submitSignIn, useAppUnderTest } from '../helpers/e2e-app'
 
 // Field-ready (design/product.md §8): a plan already open keeps working offline, its card too,
