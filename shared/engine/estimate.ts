@@ -343,7 +343,6 @@ export function summarise(prepared: PreparedRig, outcome: RunOutcome): EstimateR
     peakCurrentA: peak.currentA,
     maxDischargeA: resolved.pack.maxDischargeA,
     leadDropPct,
-    hasLeads: resolved.leads !== null,
     leadAreaMm2: resolved.leads ? resolved.leads.areaMm2 : null,
     dropoutRisk,
     dropout,

@@ -170,8 +170,7 @@ export interface WarningFacts {
   peakCurrentA: number
   maxDischargeA: number | null
   leadDropPct: { average: number; peak: number }
-  hasLeads: boolean
-  /** The lead's cross-section, when leads are given. */
+  /** The lead's cross-section; null without leads. */
   leadAreaMm2: number | null
   dropoutRisk: boolean
   dropout: DropoutOnset | null
@@ -297,12 +296,12 @@ export function collectWarnings(facts: WarningFacts): EstimateWarning[] {
         `The lead carries up to ${fixed(facts.maxAverageCurrentA)} A, but a ${wireSize(facts.leadAreaMm2)} cord is rated for only about ${fixed(ratingA)} A, so it will run hot: fit leads of at least ${wireSize(neededMm2, true)}, with a fuse rated for the lead close to the pack.`,
       )
     }
-  }
-  if (facts.hasLeads && facts.leadDropPct.average > LEAD_DROP_LIMIT_PCT) {
-    add(
-      'lead-drop-high',
-      `The lead loses ${fixed(facts.leadDropPct.average)} % of the pack voltage at the average draw (${fixed(facts.leadDropPct.peak)} % on peaks): use a thicker or shorter lead.`,
-    )
+    if (facts.leadDropPct.average > LEAD_DROP_LIMIT_PCT) {
+      add(
+        'lead-drop-high',
+        `The lead loses ${fixed(facts.leadDropPct.average)} % of the pack voltage at the average draw (${fixed(facts.leadDropPct.peak)} % on peaks): use a thicker or shorter lead.`,
+      )
+    }
   }
   // Peaks that mute only in the last couple of percent are within the tables' own error.
   const dropoutMatters =
