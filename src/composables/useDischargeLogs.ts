@@ -101,8 +101,10 @@ export function useDischargeLogs(packId: Ref<number | undefined>) {
     }
   }
 
-  /** Makes the log's health the pack's; sends the pack version on show (409 if it is stale). */
-  /** Returns the names of the rigs that took the health figure too. */
+  /**
+   * Makes the log's health the pack's (and that of the rigs using the pack); sends the pack
+   * version on show (409 if it is stale). Returns the names of the rigs that took it too.
+   */
   async function accept(logId: number): Promise<string[]> {
     const at = ids()
     if (!at || !pack.value) return []
