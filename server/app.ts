@@ -55,6 +55,7 @@ export function createApp(deps: AppDependencies): Express {
     sessions: createSessionStore(database.db, deps.sessionSecret, clock),
     cookie: sessionCookie(env.PUBLIC_URL),
     mail,
+    teamMailDailyLimit: env.TEAM_MAIL_DAILY_LIMIT,
     log,
   }
   const app = express()

@@ -27,6 +27,8 @@ const mail = createMailer({
   from: env.MAIL_FROM,
   clock: systemClock,
   log: (error) => console.error('Mail could not be sent:', error),
+  // Only with the built-in catcher: every message it holds, for the operator's eyes.
+  operatorCopy: { mailDir: join(dataDir, 'mail'), print: (text) => console.log(text) },
 })
 const mailCatcherPort = await mail.start()
 const seeded = env.LOUDHOUR_DEMO ? await seedDemo(database, Date.now()) : false
@@ -49,7 +51,10 @@ const server = app.listen(env.PORT, env.HOST, (error?: Error) => {
     console.log(
       `  mail: no SMTP_URL, so messages stay in the local catcher (127.0.0.1:${mailCatcherPort});`,
     )
-    console.log(`        team admins read them at ${env.PUBLIC_URL}/outbox`)
+    console.log(`        printed here and kept in ${join(dataDir, 'mail')} as .eml files;`)
+    console.log(
+      `        team admins read their team's mail at ${env.PUBLIC_URL}/outbox (no reset links)`,
+    )
   }
   if (env.LOUDHOUR_DEMO) {
     console.log(

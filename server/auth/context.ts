@@ -13,5 +13,7 @@ export interface AccountsContext {
   sessions: SessionStore
   cookie: SessionCookie
   mail: Mailer
+  /** TEAM_MAIL_DAILY_LIMIT: messages a team may send in a rolling day. */
+  teamMailDailyLimit: number
   log: (error: unknown) => void
 }

@@ -22,7 +22,7 @@ export function hashLinkToken(token: string): string {
 }
 
 /** The one answer for a link token that is unknown, spent or expired (which one is not said). */
-export function invalidLinkToken(what: 'reset' | 'invitation'): ApiError {
+export function invalidLinkToken(what: 'reset' | 'invitation' | 'confirmation'): ApiError {
   const message = `This ${what} link is not valid, was used already or has expired; ask for a new one`
   return new ApiError(400, 'invalid-token', `token: ${message}`, [{ path: 'token', message }])
 }

@@ -12,6 +12,7 @@ export function meResponse(context: AccountsContext, userId: number): MeResponse
     user: { id: user.id, email: user.email, name: user.name },
     teams: teamsOf(context.db, userId),
     devOutbox: context.mail.outbox !== undefined,
+    emailVerified: user.emailVerifiedAtMs !== null,
   }
 }
 

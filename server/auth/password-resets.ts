@@ -2,6 +2,7 @@ import { and, eq, gt, isNull } from 'drizzle-orm'
 import type { AppDatabase } from '../db/client'
 import { passwordResets, users } from '../db/schema'
 import { replacePassword } from './accounts'
+import { markEmailVerified } from './email-verifications'
 import { createLinkToken, hashLinkToken } from './link-tokens'
 
 // OWASP Forgot Password Cheat Sheet: short-lived, single-use tokens. Thirty minutes covers a
@@ -33,8 +34,8 @@ export function findPendingReset(db: AppDatabase, token: string, nowMs: number) 
 }
 
 /**
- * Sets the new password, spends every outstanding reset of the account and ends all its
- * sessions, in one transaction. False when the token was spent meanwhile (a double submit).
+ * Sets the new password, spends every outstanding reset of the account, ends all its sessions
+ * and counts the address as confirmed, in one transaction. False when the token was spent meanwhile (a double submit).
  */
 export function completePasswordReset(
   db: AppDatabase,
@@ -54,6 +55,8 @@ export function completePasswordReset(
       .where(and(eq(passwordResets.userId, reset.userId), isNull(passwordResets.usedAtMs)))
       .run()
     replacePassword(tx, reset.userId, passwordHash, nowMs)
+    // The link came through the account's mailbox: that confirms the address as well.
+    markEmailVerified(tx, reset.userId, nowMs)
     return true
   })
 }

@@ -16,12 +16,11 @@ export function cardMail(input: {
   return {
     to: input.to,
     // The team's admins may read it in the local mail catcher: it holds nothing they cannot see.
-    shownToAdminsOf: [input.teamId],
-    // A name is one line of text, but a header must never be split by one that is not.
-    subject: `Runtime card: ${card.title}${card.dateLabel ? `, ${card.dateLabel}` : ''}`.replace(
-      /[\r\n]+/g,
-      ' ',
-    ),
+    sentByTeamId: input.teamId,
+    // No names: the plan's is whatever an editor typed, so it stays in the body (escaped there),
+    // out of the line a mail program shows first and a phisher would write. The date is the app's
+    // own words for a validated calendar date.
+    subject: card.dateLabel ? `Loudhour runtime card, ${card.dateLabel}` : 'Loudhour runtime card',
     text: cardText(card, shareUrl, intro),
     html: cardHtml(card, shareUrl, intro),
   }

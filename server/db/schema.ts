@@ -16,6 +16,8 @@ export const users = sqliteTable('users', {
   email: text('email').notNull().unique(),
   name: text('name').notNull(),
   passwordHash: text('password_hash').notNull(),
+  /** When the owner opened a mailed confirmation link (or a reset link); null until then. */
+  emailVerifiedAtMs: integer('email_verified_at_ms'),
   createdAtMs: integer('created_at_ms').notNull(),
   updatedAtMs: integer('updated_at_ms').notNull(),
 })
@@ -88,19 +90,40 @@ export const invitations = sqliteTable(
   ],
 )
 
-export const passwordResets = sqliteTable(
-  'password_resets',
+/** The columns of a mailed single-use link (reset, address confirmation): the token's hash only. */
+const mailedLinkColumns = () => ({
+  id: integer('id').primaryKey({ autoIncrement: true }),
+  userId: integer('user_id')
+    .notNull()
+    .references(() => users.id, { onDelete: 'cascade' }),
+  tokenHash: text('token_hash').notNull().unique(),
+  createdAtMs: integer('created_at_ms').notNull(),
+  expiresAtMs: integer('expires_at_ms').notNull(),
+  usedAtMs: integer('used_at_ms'),
+})
+
+export const passwordResets = sqliteTable('password_resets', mailedLinkColumns(), (table) => [
+  index('password_resets_user_id_idx').on(table.userId),
+])
+
+/** Address confirmation links; like reset tokens, stored only as SHA-256 hashes. */
+export const emailVerifications = sqliteTable(
+  'email_verifications',
+  mailedLinkColumns(),
+  (table) => [index('email_verifications_user_id_idx').on(table.userId)],
+)
+
+/** One row per message a team sent (invitation, card), counted for the team's daily mail cap. */
+export const teamMailSends = sqliteTable(
+  'team_mail_sends',
   {
     id: integer('id').primaryKey({ autoIncrement: true }),
-    userId: integer('user_id')
+    teamId: integer('team_id')
       .notNull()
-      .references(() => users.id, { onDelete: 'cascade' }),
-    tokenHash: text('token_hash').notNull().unique(),
-    createdAtMs: integer('created_at_ms').notNull(),
-    expiresAtMs: integer('expires_at_ms').notNull(),
-    usedAtMs: integer('used_at_ms'),
+      .references(() => teams.id, { onDelete: 'cascade' }),
+    sentAtMs: integer('sent_at_ms').notNull(),
   },
-  (table) => [index('password_resets_user_id_idx').on(table.userId)],
+  (table) => [index('team_mail_sends_team_sent_idx').on(table.teamId, table.sentAtMs)],
 )
 
 export * from './schema-resources'

@@ -2,17 +2,23 @@ import nodemailer, { type Transporter } from 'nodemailer'
 import type { Clock } from '../clock'
 import { startFakeSmtp, type FakeSmtpServer } from './fake-smtp'
 import type { MailMessage } from './message'
+import { createOperatorCopy, type OperatorCopyOptions } from './operator-copy'
 import { captureHeader, Outbox } from './outbox'
+
+/** A message, or the work that decides whether there is one (undefined: nothing to send). */
+export type BackgroundMail = MailMessage | (() => Promise<MailMessage | undefined>)
 
 export interface Mailer {
   /** Sends now and resolves once the SMTP server has accepted the message. */
   send(message: MailMessage): Promise<void>
   /**
    * Sends without making the caller wait, so an answer takes as long whether or not a message
-   * went out (password reset must not reveal which addresses have accounts).
+   * went out (password reset must not reveal which addresses have accounts). Given a function,
+   * runs it after the caller has answered too: the lookups and hashing that differ between a known
+   * and an unknown address happen there, and its failures are logged, never thrown.
    */
-  sendInBackground(message: MailMessage): void
-  /** Resolves when every background send has finished (tests, shutdown). */
+  sendInBackground(mail: BackgroundMail): void
+  /** Resolves when every background send (and its work) has finished (tests, shutdown). */
   settled(): Promise<void>
   /** The built-in catcher, or undefined when mail goes to a real SMTP_URL. */
   outbox: Outbox | undefined
@@ -26,10 +32,21 @@ export interface MailerOptions {
   from: string
   clock: Clock
   log: (error: unknown) => void
+  /** With the built-in catcher: also write each message to `.eml` files and the console. */
+  operatorCopy?: OperatorCopyOptions
 }
 
 export function createMailer(options: MailerOptions): Mailer {
-  const outbox = options.smtpUrl ? undefined : new Outbox(options.clock)
+  const copy = options.operatorCopy ? createOperatorCopy(options.operatorCopy) : undefined
+  const outbox = options.smtpUrl
+    ? undefined
+    : new Outbox(options.clock, (caught) => {
+        try {
+          copy?.(caught)
+        } catch (error) {
+          options.log(error)
+        }
+      })
   let fakeServer: Promise<FakeSmtpServer> | undefined
   let transport: Promise<Transporter> | undefined
   const inFlight = new Set<Promise<void>>()
@@ -68,8 +85,13 @@ export function createMailer(options: MailerOptions): Mailer {
 
   return {
     send,
-    sendInBackground(message) {
-      const sending = send(message).catch(options.log)
+    sendInBackground(mail) {
+      const sending = (async () => {
+        // A macrotask first, so even synchronous work in `mail` runs after the answer has gone.
+        await new Promise((resolve) => setImmediate(resolve))
+        const message = typeof mail === 'function' ? await mail() : mail
+        if (message) await send(message)
+      })().catch(options.log)
       inFlight.add(sending)
       void sending.finally(() => inFlight.delete(sending))
     },

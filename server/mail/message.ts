@@ -4,8 +4,10 @@ export interface MailMessage {
   text: string
   html: string
   /**
-   * In the built-in mail catcher only: the teams whose admins may read this message there. A
-   * reset link must not be readable by whoever made an account (every account admins its own team).
+   * The team that sent it (an invitation, a card): that team's admins may read it in the built-in
+   * mail catcher. Null for mail that grants access to an account (a reset or confirmation link):
+   * only its addressee may read that, or anyone who signed up could take the accounts of the people
+   * they invite.
    */
-  shownToAdminsOf: number[]
+  sentByTeamId: number | null
 }

@@ -2,6 +2,7 @@ import { randomUUID } from 'node:crypto'
 import type { OutboxMessageView } from '../../shared/schemas/account-responses'
 import type { Clock } from '../clock'
 import type { MailMessage } from './message'
+import type { CaughtMail } from './operator-copy'
 
 // The header that ties a message received over SMTP back to the one composed here, so the
 // catcher needs no MIME parser (quoted-printable, multipart) and still shows only what arrived.
@@ -9,12 +10,28 @@ export const captureHeader = 'X-Loudhour-Capture'
 // Enough for a working day of invitations and resets; older ones drop off.
 const keptMessages = 200
 
+interface HeldMessage extends OutboxMessageView {
+  recipients: string[]
+  sentByTeamId: number | null
+}
+
+/** Who is asking to read the catcher: the teams they admin, and their own address if confirmed. */
+export interface OutboxReader {
+  adminTeamIds: number[]
+  /** Undefined while the address is unconfirmed: whoever signed up with it may not own it. */
+  verifiedEmail: string | undefined
+}
+
 /** The built-in mail catcher's memory: messages that really passed through the local SMTP server. */
 export class Outbox {
   private readonly composed = new Map<string, MailMessage>()
-  private readonly received: (OutboxMessageView & { shownToAdminsOf: number[] })[] = []
+  private readonly received: HeldMessage[] = []
 
-  constructor(private readonly clock: Clock) {}
+  constructor(
+    private readonly clock: Clock,
+    /** Hands every caught message to the operator (console and `.eml` file); see operator-copy.ts. */
+    private readonly copyToOperator: (mail: CaughtMail) => void = () => {},
+  ) {}
 
   /** Registers a message about to be sent; returns the value for the capture header. */
   expect(message: MailMessage): string {
@@ -36,23 +53,34 @@ export class Outbox {
     const message = id === undefined ? undefined : this.composed.get(id)
     if (id === undefined || !message) return
     this.composed.delete(id)
-    this.received.unshift({
+    const receivedAt = this.clock()
+    const held: HeldMessage = {
       id,
       to: recipients.join(', '),
       subject: message.subject,
       text: message.text,
       html: message.html,
-      date: this.clock().toISOString(),
-      shownToAdminsOf: message.shownToAdminsOf,
-    })
+      date: receivedAt.toISOString(),
+      recipients: recipients.map((address) => address.toLowerCase()),
+      sentByTeamId: message.sentByTeamId,
+    }
+    this.copyToOperator({ ...held, raw: rawMessage, receivedAt })
+    this.received.unshift(held)
     this.received.length = Math.min(this.received.length, keptMessages)
   }
 
-  /** Newest first: the messages an admin of any of `adminTeamIds` may read. */
-  listFor(adminTeamIds: number[]): OutboxMessageView[] {
-    const allowed = new Set(adminTeamIds)
+  /**
+   * Newest first: what this reader may see. The mail of the teams they admin (invitations, cards),
+   * and mail addressed to their own confirmed address; never someone else's reset link.
+   */
+  listFor(reader: OutboxReader): OutboxMessageView[] {
+    const teams = new Set(reader.adminTeamIds)
     return this.received
-      .filter((message) => message.shownToAdminsOf.some((teamId) => allowed.has(teamId)))
-      .map(({ shownToAdminsOf: _scope, ...message }) => message)
+      .filter(
+        (message) =>
+          (message.sentByTeamId !== null && teams.has(message.sentByTeamId)) ||
+          (reader.verifiedEmail !== undefined && message.recipients.includes(reader.verifiedEmail)),
+      )
+      .map(({ recipients: _recipients, sentByTeamId: _team, ...message }) => message)
   }
 }

@@ -12,7 +12,7 @@ export function escapeHtml(value: string): string {
 
 interface Layout {
   to: string
-  shownToAdminsOf: number[]
+  sentByTeamId: number | null
   subject: string
   paragraphs: string[]
   action: { label: string; url: string }
@@ -39,7 +39,7 @@ ${layout.paragraphs.map((paragraph) => `<p>${escapeHtml(paragraph)}</p>`).join('
     subject: layout.subject,
     text,
     html,
-    shownToAdminsOf: layout.shownToAdminsOf,
+    sentByTeamId: layout.sentByTeamId,
   }
 }
 
@@ -53,8 +53,10 @@ export function invitationMail(input: {
 }): MailMessage {
   return compose({
     to: input.to,
-    shownToAdminsOf: [input.teamId],
-    subject: `Join ${input.teamName} on Loudhour`,
+    sentByTeamId: input.teamId,
+    // Fixed: the team's and the inviter's names are whatever the sender typed, so they stay in
+    // the body (escaped), never in the line a mail program shows before anything else.
+    subject: 'An invitation to a team on Loudhour',
     paragraphs: [
       `${input.inviterName} invited you to the team "${input.teamName}" on Loudhour as ${input.role}.`,
       `Sign in or create an account with this address (${input.to}), then accept the invitation.`,
@@ -65,14 +67,10 @@ export function invitationMail(input: {
   })
 }
 
-export function passwordResetMail(input: {
-  to: string
-  teamIds: number[]
-  url: string
-}): MailMessage {
+export function passwordResetMail(input: { to: string; url: string }): MailMessage {
   return compose({
     to: input.to,
-    shownToAdminsOf: input.teamIds,
+    sentByTeamId: null,
     subject: 'Reset your Loudhour password',
     paragraphs: [
       'Someone asked to reset the password of the Loudhour account with this address.',
@@ -84,12 +82,48 @@ export function passwordResetMail(input: {
   })
 }
 
-/** Links in messages point at the client pages of api.md, under PUBLIC_URL. */
+export function emailVerificationMail(input: { to: string; url: string }): MailMessage {
+  return compose({
+    to: input.to,
+    sentByTeamId: null,
+    subject: 'Confirm your address for Loudhour',
+    paragraphs: [
+      'Someone made a Loudhour account with this address. If it was you, confirm the address: then the account can send invitations and runtime cards.',
+    ],
+    action: { label: 'Confirm the address', url: input.url },
+    footnote: `The link works once and expires in ${emailVerificationLifetimeHours} hours. If you did not make the account, ignore this message: the account cannot send mail from this address.`,
+  })
+}
+
+/** To an address that already has an account, when someone signs up with it again. */
+export function accountExistsMail(input: { to: string; url: string }): MailMessage {
+  return compose({
+    to: input.to,
+    sentByTeamId: null,
+    subject: 'You already have a Loudhour account',
+    paragraphs: [
+      'Someone tried to make a new Loudhour account with this address, which has one already. Nothing was changed.',
+      'If it was you and you have forgotten the password, ask for a reset link on the sign-in page.',
+    ],
+    action: { label: 'Reset the password', url: input.url },
+    footnote: 'If it was not you, ignore this message: your account and password stay as they are.',
+  })
+}
+
+// Kept beside the footnote that states it; email-verifications.ts applies it.
+export const emailVerificationLifetimeHours = 48
+
+/** Links in messages point at the client's pages, under PUBLIC_URL. */
 export function linkTo(
   publicUrl: string,
-  path: '/invitations/accept' | '/reset-password',
+  path: '/invitations/accept' | '/reset-password' | '/verify-email',
   token: string,
 ): string {
   // Concatenated, not resolved, so a PUBLIC_URL with a path prefix keeps it; base64url needs no escaping.
   return `${publicUrl}${path}?token=${token}`
+}
+
+/** A client page under PUBLIC_URL that takes no token. */
+export function pageAt(publicUrl: string, path: '/forgot-password'): string {
+  return `${publicUrl}${path}`
 }

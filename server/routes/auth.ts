@@ -2,6 +2,7 @@ import { Router, type Request } from 'express'
 import { eq } from 'drizzle-orm'
 import {
   emailSchema,
+  emailVerificationConfirmSchema,
   passwordChangeSchema,
   passwordResetConfirmSchema,
   passwordResetRequestSchema,
@@ -9,10 +10,16 @@ import {
   signInSchema,
   signUpSchema,
 } from '../../shared/schemas/auth'
-import { createAccount, findUserByEmail, findUserById, replacePassword } from '../auth/accounts'
+import { findUserByEmail, findUserById, replacePassword } from '../auth/accounts'
 import type { AccountsContext } from '../auth/context'
 import { meResponse, signIn } from '../auth/me'
-import { teamsOf } from '../auth/memberships'
+import {
+  confirmEmailVerification,
+  isEmailVerified,
+  issueEmailVerification,
+} from '../auth/email-verifications'
+import { completeSignUp } from '../auth/sign-up'
+import type { SignUpAccepted } from '../../shared/schemas/account-responses'
 import {
   completePasswordReset,
   findPendingReset,
@@ -25,7 +32,7 @@ import { requireUser, signedInUser } from '../auth/require'
 import { users } from '../db/schema'
 import { ApiError, parseInput } from '../http/errors'
 import { hourMs, throttle } from '../http/throttle'
-import { linkTo, passwordResetMail } from '../mail/templates'
+import { emailVerificationMail, linkTo, passwordResetMail } from '../mail/templates'
 
 const quarterHourMs = 15 * 60 * 1000
 
@@ -76,13 +83,31 @@ const resetThrottles = () => [
   }),
 ]
 
-const signUpThrottle = () =>
+const signUpThrottles = () => [
   throttle({
     name: 'sign_up_address',
     windowMs: hourMs,
     limit: 30,
     key: 'address',
     message: 'Too many new accounts from this address. Wait a while and try again.',
+  }),
+  // Each sign-up mails the address: keep strangers from flooding someone's inbox with them.
+  throttle({
+    name: 'sign_up_account',
+    windowMs: hourMs,
+    limit: 5,
+    key: bodyEmail,
+    message: 'Several messages went to this address already. Check the inbox, or wait an hour.',
+  }),
+]
+
+const resendVerificationThrottle = () =>
+  throttle({
+    name: 'email_verification_account',
+    windowMs: hourMs,
+    limit: 5,
+    key: (req) => (req.auth ? String(req.auth.user.id) : undefined),
+    message: 'Several links went to this address already. Check the inbox, or wait an hour.',
   })
 
 const wrongCredentials = () =>
@@ -96,32 +121,17 @@ export function authRouter(context: AccountsContext): Router {
   const { db, clock, sessions, cookie, mail } = context
   const router = Router()
 
-  router.post('/sign-up', signUpThrottle(), async (req, res) => {
+  // The same 202 for a new address and one with an account (the answer must not tell which):
+  // everything that differs between the two happens after it, in completeSignUp. The account
+  // signs in once made; it sends mail to others once its address is confirmed.
+  router.post('/sign-up', ...signUpThrottles(), (req, res) => {
     const input = parseInput(signUpSchema, req.body)
     assertPasswordStrong(input.password, [input.email, input.name])
-    const taken = () =>
-      new ApiError(
-        409,
-        'email-taken',
-        'email: An account with this address exists; sign in instead.',
-        [{ path: 'email', message: 'An account with this address exists; sign in instead' }],
-      )
-    if (findUserByEmail(db, input.email)) throw taken()
-    const passwordHash = await hashPassword(input.password)
-    let userId: number
-    try {
-      userId = createAccount(
-        db,
-        { email: input.email, name: input.name, passwordHash },
-        clock().getTime(),
-      )
-    } catch (error) {
-      // Two sign-ups with one address at once: the unique index lets only one through.
-      if (findUserByEmail(db, input.email)) throw taken()
-      throw error
+    const answer: SignUpAccepted = {
+      message: `Check your mail at ${input.email}: the message there says how to go on.`,
     }
-    await signIn(context, res, userId)
-    res.status(201).json(meResponse(context, userId))
+    res.status(202).json(answer)
+    mail.sendInBackground(() => completeSignUp(context, input))
   })
 
   router.post('/sign-in', ...signInThrottles(), async (req, res) => {
@@ -181,22 +191,21 @@ export function authRouter(context: AccountsContext): Router {
     res.json(meResponse(context, user.id))
   })
 
-  // 202 whatever the address: the answer must not tell whether an account exists, so the mail
-  // goes out in the background and the timing does not depend on it either.
+  // 202 whatever the address, answered before anything is looked up: the account lookup, the
+  // token and the mail all happen afterwards, so neither the answer nor its timing tells whether
+  // an account exists.
   router.post('/password-reset', ...resetThrottles(), (req, res) => {
     const input = parseInput(passwordResetRequestSchema, req.body)
-    const user = findUserByEmail(db, input.email)
-    if (user) {
-      const token = issuePasswordReset(db, user.id, clock().getTime())
-      mail.sendInBackground(
-        passwordResetMail({
-          to: user.email,
-          teamIds: teamsOf(db, user.id).map((team) => team.id),
-          url: linkTo(context.publicUrl, '/reset-password', token),
-        }),
-      )
-    }
     res.status(202).json({ message: 'If an account has this address, a reset link is on its way.' })
+    mail.sendInBackground(async () => {
+      const user = findUserByEmail(db, input.email)
+      if (!user) return undefined
+      const token = issuePasswordReset(db, user.id, clock().getTime())
+      return passwordResetMail({
+        to: user.email,
+        url: linkTo(context.publicUrl, '/reset-password', token),
+      })
+    })
   })
 
   router.post('/password-reset/confirm', async (req, res) => {
@@ -207,6 +216,31 @@ export function authRouter(context: AccountsContext): Router {
     const passwordHash = await hashPassword(input.password)
     if (!completePasswordReset(db, reset, passwordHash, clock().getTime()))
       throw invalidLinkToken('reset')
+    res.status(204).end()
+  })
+
+  // Sends a new confirmation link to the signed-in account's own address.
+  router.post('/email-verification', requireUser, resendVerificationThrottle(), (req, res) => {
+    const { user } = signedInUser(req)
+    if (isEmailVerified(db, user.id)) {
+      throw new ApiError(409, 'already-verified', 'This address is confirmed already.')
+    }
+    const token = issueEmailVerification(db, user.id, clock().getTime())
+    mail.sendInBackground(
+      emailVerificationMail({
+        to: user.email,
+        url: linkTo(context.publicUrl, '/verify-email', token),
+      }),
+    )
+    res.status(202).json({ message: `A new link is on its way to ${user.email}.` })
+  })
+
+  // The link itself is the proof: it works signed in or out (the mail may be read on a phone).
+  router.post('/email-verification/confirm', (req, res) => {
+    const { token } = parseInput(emailVerificationConfirmSchema, req.body)
+    if (confirmEmailVerification(db, token, clock().getTime()) === undefined) {
+      throw invalidLinkToken('confirmation')
+    }
     res.status(204).end()
   })
 

@@ -14,6 +14,8 @@ import {
   type CardEmailResponse,
 } from '../../shared/card/schemas'
 import { planIdParam } from './share-links'
+import { reserveTeamMail } from '../mail/team-mail-cap'
+import { requireVerifiedSender } from '../auth/verified-sender'
 
 function recipientsLabel(addresses: string[]): string {
   const label = `E-mailed to ${addresses.join(', ')}`
@@ -27,7 +29,7 @@ function recipientsLabel(addresses: string[]): string {
  * `{ sent, shareLink }` once the mail server has accepted every message.
  */
 export function cardEmailsRouter(
-  context: Pick<AccountsContext, 'db' | 'clock' | 'publicUrl' | 'mail'>,
+  context: Pick<AccountsContext, 'db' | 'clock' | 'publicUrl' | 'mail' | 'teamMailDailyLimit'>,
 ): Router {
   const { db, clock, publicUrl, mail } = context
   const router = Router({ mergeParams: true })
@@ -42,6 +44,7 @@ export function cardEmailsRouter(
       key: (req) => (req.auth ? String(req.auth.user.id) : undefined),
       message: `Too many card e-mails sent from this account in the last hour (each may go to up to ${CARD_EMAIL_RECIPIENTS_MAX} addresses). Wait a while and try again.`,
     }),
+    requireVerifiedSender(db),
     async (req, res) => {
       const body = parseInput(cardEmailBodySchema, req.body)
       const { teamId } = teamMembership(req)
@@ -50,6 +53,13 @@ export function cardEmailsRouter(
         const plan = requireTeamPlan(tx, teamId, planIdParam(req))
         // The card first: a plan without one gets no link made for nothing.
         const built = planCard(tx, plan)
+        // Counted with the link: a refused request leaves neither behind.
+        reserveTeamMail(tx, {
+          teamId,
+          messages: body.to.length,
+          dailyLimit: context.teamMailDailyLimit,
+          nowMs: clock().getTime(),
+        })
         const scope = { tx, planId: plan.id, userId: user.id, nowMs: clock().getTime(), publicUrl }
         return {
           card: built,

@@ -16,6 +16,8 @@ import { ApiError, parseInput } from '../http/errors'
 import { rowIdParam } from '../http/params'
 import { hourMs, throttle } from '../http/throttle'
 import { linkTo, invitationMail } from '../mail/templates'
+import { reserveTeamMail } from '../mail/team-mail-cap'
+import { requireVerifiedSender } from '../auth/verified-sender'
 import { createInvitation, deleteInvitation, listPendingInvitations } from '../teams/invitations'
 import { changeMemberRole, listMembers, removeMember } from '../teams/members'
 
@@ -101,10 +103,17 @@ export function teamsRouter(context: AccountsContext): Router {
       message:
         'Too many invitations sent from this account in the last hour. Wait a while and try again.',
     }),
+    requireVerifiedSender(db),
     async (req, res) => {
       const { teamId, role } = teamMembership(req)
       const input = parseInput(invitationCreateSchema, req.body)
       const inviter = signedInUser(req).user
+      reserveTeamMail(db, {
+        teamId,
+        messages: 1,
+        dailyLimit: context.teamMailDailyLimit,
+        nowMs: clock().getTime(),
+      })
       const { invitation, token } = createInvitation(
         db,
         teamId,

@@ -18,8 +18,15 @@ export interface TeamView {
 export interface MeResponse {
   user: UserView
   teams: TeamView[]
-  /** True while the built-in mail catcher is in use (no SMTP_URL): admins may read its outbox. */
+  /** True while the built-in mail catcher is in use (no SMTP_URL): its outbox may be read. */
   devOutbox: boolean
+  /** False until the owner opens the mailed confirmation link; until then the account sends no mail. */
+  emailVerified: boolean
+}
+
+/** The one answer to a sign-up, whether or not the address had an account. */
+export interface SignUpAccepted {
+  message: string
 }
 
 export interface MemberView {

@@ -1,4 +1,5 @@
 import { z } from 'zod'
+import { singleLineMessage, singleLinePattern } from './single-line'
 
 // Request bodies of /api/v1/auth, used by the forms (client) and the routes (server) alike.
 
@@ -38,6 +39,7 @@ export const personNameSchema = z
   .trim()
   .min(1, 'Enter a name')
   .max(80, 'Use at most 80 characters')
+  .regex(singleLinePattern, singleLineMessage)
 
 export const signUpSchema = z.object({
   email: emailSchema,
@@ -69,9 +71,12 @@ export const passwordResetConfirmSchema = z.object({
   password: newPasswordSchema,
 })
 
+export const emailVerificationConfirmSchema = z.object({ token: linkTokenSchema })
+
 export type SignUpInput = z.infer<typeof signUpSchema>
 export type SignInInput = z.infer<typeof signInSchema>
 export type ProfileUpdateInput = z.infer<typeof profileUpdateSchema>
 export type PasswordChangeInput = z.infer<typeof passwordChangeSchema>
 export type PasswordResetRequestInput = z.infer<typeof passwordResetRequestSchema>
+export type EmailVerificationConfirmInput = z.infer<typeof emailVerificationConfirmSchema>
 export type PasswordResetConfirmInput = z.infer<typeof passwordResetConfirmSchema>

@@ -3,6 +3,7 @@
 // so screens can show what was assumed.
 import { z } from 'zod'
 import { CHEMISTRIES, CHEMISTRY_DATA } from '../engine/chemistry'
+import { singleLineMessage, singleLinePattern } from './single-line'
 
 interface Bounds {
   min: number
@@ -42,6 +43,7 @@ function text(label: string, maxLength: number) {
     .trim()
     .min(1, { error: message })
     .max(maxLength, { error: message })
+    .regex(singleLinePattern, { error: `${label}: ${singleLineMessage.toLowerCase()}` })
 }
 
 function choice<const T extends readonly [string, ...string[]]>(label: string, values: T) {

@@ -4,6 +4,7 @@
 // on both sides. Part fields come from the engine's own schemas: a saved part drops into an
 // estimate request as it is.
 import { z } from 'zod'
+import { singleLineMessage, singleLinePattern } from './single-line'
 import {
   SEVERITIES,
   STOP_REASONS,
@@ -33,6 +34,7 @@ export const resourceNameSchema = z
   .trim()
   .min(1, { error: 'Enter a name' })
   .max(RESOURCE_NAME_MAX, { error: `Use at most ${RESOURCE_NAME_MAX} characters for the name` })
+  .regex(singleLinePattern, { error: singleLineMessage })
 
 export const resourceNotesSchema = z
   .string({ error: 'Notes must be text' })

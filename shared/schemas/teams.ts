@@ -1,5 +1,6 @@
 import { z } from 'zod'
 import { emailSchema, linkTokenSchema } from './auth'
+import { singleLineMessage, singleLinePattern } from './single-line'
 
 // Request bodies of /api/v1/teams and /api/v1/invitations, shared by forms and routes.
 
@@ -14,6 +15,7 @@ export const teamNameSchema = z
   .trim()
   .min(1, 'Enter a team name')
   .max(80, 'Use at most 80 characters')
+  .regex(singleLinePattern, singleLineMessage)
 
 export const teamCreateSchema = z.object({ name: teamNameSchema })
 export const teamUpdateSchema = z.object({ name: teamNameSchema })

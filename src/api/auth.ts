@@ -1,5 +1,6 @@
-import type { MeResponse } from '../../shared/schemas/account-responses'
+import type { MeResponse, SignUpAccepted } from '../../shared/schemas/account-responses'
 import type {
+  EmailVerificationConfirmInput,
   PasswordChangeInput,
   PasswordResetConfirmInput,
   PasswordResetRequestInput,
@@ -21,8 +22,9 @@ export const signIn = (input: SignInInput) =>
     quietUnauthorized: true,
   })
 
+/** The same answer whether or not the address had an account; the mail says which. */
 export const signUp = (input: SignUpInput) =>
-  apiRequest<MeResponse>('/v1/auth/sign-up', { method: 'POST', body: input })
+  apiRequest<SignUpAccepted>('/v1/auth/sign-up', { method: 'POST', body: input })
 
 export const signOut = () => apiRequest<void>('/v1/auth/sign-out', { method: 'POST' })
 
@@ -37,6 +39,13 @@ export const changePassword = (input: PasswordChangeInput) =>
 
 export const requestPasswordReset = (input: PasswordResetRequestInput) =>
   apiRequest<{ message: string }>('/v1/auth/password-reset', { method: 'POST', body: input })
+
+/** Mails a new confirmation link to the signed-in account's address. */
+export const resendEmailVerification = () =>
+  apiRequest<{ message: string }>('/v1/auth/email-verification', { method: 'POST' })
+
+export const confirmEmailVerification = (input: EmailVerificationConfirmInput) =>
+  apiRequest<void>('/v1/auth/email-verification/confirm', { method: 'POST', body: input })
 
 export const confirmPasswordReset = (input: PasswordResetConfirmInput) =>
   apiRequest<void>('/v1/auth/password-reset/confirm', { method: 'POST', body: input })

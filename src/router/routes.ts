@@ -57,6 +57,12 @@ export interface RouteNamedMap {
     Record<never, never>,
     Record<never, never>
   >
+  'verify-email': RouteRecordInfo<
+    'verify-email',
+    '/verify-email',
+    Record<never, never>,
+    Record<never, never>
+  >
   account: RouteRecordInfo<'account', '/account', Record<never, never>, Record<never, never>>
   outbox: RouteRecordInfo<'outbox', '/outbox', Record<never, never>, Record<never, never>>
   'not-found': RouteRecordInfo<
@@ -155,7 +161,7 @@ export const routes: RouteRecordRaw[] = [
     component: () => import('@/views/AboutView.vue'),
     meta: { title: 'Method and cautions' },
   },
-  // Accounts. Links in e-mails point at /reset-password and /invitations/accept (design/api.md).
+  // Accounts. Links in e-mails point at /reset-password, /verify-email and /invitations/accept.
   {
     path: '/sign-in',
     name: 'sign-in',
@@ -179,6 +185,12 @@ export const routes: RouteRecordRaw[] = [
     name: 'reset-password',
     component: () => import('@/views/ResetPasswordView.vue'),
     meta: { title: 'Choose a new password' },
+  },
+  {
+    path: '/verify-email',
+    name: 'verify-email',
+    component: () => import('@/views/VerifyEmailView.vue'),
+    meta: { title: 'Confirm your address' },
   },
   {
     path: '/invitations/accept',

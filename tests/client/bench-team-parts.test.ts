@@ -36,6 +36,7 @@ function signIn(): void {
     user: { id: 1, email: 'sam@example.test', name: 'Sam' },
     teams: [{ id: 3, name: 'Night crew', role: 'viewer' }],
     devOutbox: false,
+    emailVerified: true,
   })
 }
 

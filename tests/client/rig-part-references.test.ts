@@ -47,6 +47,7 @@ beforeEach(() => {
     user: { id: 1, email: 'sam@example.test', name: 'Sam' },
     teams: [{ id: 3, name: 'Night crew', role: 'editor' }],
     devOutbox: false,
+    emailVerified: true,
   })
   for (const api of [amplifiersApi, speakersApi, accessoriesApi]) {
     vi.mocked(api.list).mockResolvedValue({ items: [], total: 0 } as never)

@@ -11,6 +11,7 @@ const me = {
   user: { id: 1, email: 'pat@crew.example', name: 'Pat' },
   teams: [{ id: 7, name: 'Crew', role: 'admin' }],
   devOutbox: true,
+  emailVerified: true,
 }
 
 function answer(status: number, body: unknown): Response {

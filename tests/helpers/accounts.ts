@@ -1,7 +1,10 @@
 import request from 'supertest'
 import type { Express } from 'express'
 import type { Response } from 'supertest'
-import type { MeResponse } from '../../shared/schemas/account-responses'
+import type { MeResponse, OutboxMessageView } from '../../shared/schemas/account-responses'
+import { findUserByEmail } from '../../server/auth/accounts'
+import { markEmailVerified } from '../../server/auth/email-verifications'
+import type { TestApp } from './test-app'
 
 // Passphrases zxcvbn scores 4 ("very unguessable"); tests that need a refused one say so.
 export const strongPassword = 'amber kettle wanders north 41'
@@ -20,12 +23,47 @@ export interface SignedUp {
   me: MeResponse
 }
 
-export async function signUp(app: Express, email: string, name = 'Test Person'): Promise<SignedUp> {
-  const response = await request(app)
+/**
+ * An account made the way a person makes one: sign-up (202, the account is made after the
+ * answer), the confirmation link from the mail, then sign-in. `confirmed: false` stops before
+ * the link. With a real SMTP_URL there is no catcher to read the link from, so the address is
+ * marked confirmed in the database instead.
+ */
+export async function signUp(
+  testApp: TestApp,
+  email: string,
+  name = 'Test Person',
+  { confirmed = true }: { confirmed?: boolean } = {},
+): Promise<SignedUp> {
+  await request(testApp.app)
     .post('/api/v1/auth/sign-up')
     .send({ email, name, password: strongPassword })
-    .expect(201)
+    .expect(202)
+  await testApp.mail.settled()
+  if (confirmed) {
+    if (testApp.mail.outbox) {
+      const [mail] = mailsTo(testApp, email)
+      if (!mail) throw new Error(`No confirmation mail to ${email}`)
+      await request(testApp.app)
+        .post('/api/v1/auth/email-verification/confirm')
+        .send({ token: tokenInMail(mail.text) })
+        .expect(204)
+    } else {
+      const user = findUserByEmail(testApp.database.db, email)
+      if (!user) throw new Error(`No account for ${email}`)
+      markEmailVerified(testApp.database.db, user.id, Date.now())
+    }
+  }
+  const response = await request(testApp.app)
+    .post('/api/v1/auth/sign-in')
+    .send({ email, password: strongPassword })
+    .expect(200)
   return { cookie: sessionCookieOf(response), me: response.body as MeResponse }
+}
+
+/** Every message the catcher holds for `email`, newest first (the addressee's own view). */
+export function mailsTo(testApp: TestApp, email: string): OutboxMessageView[] {
+  return testApp.mail.outbox?.listFor({ adminTeamIds: [], verifiedEmail: email }) ?? []
 }
 
 export async function signInCookie(

@@ -16,9 +16,11 @@ export interface CardFixture {
 }
 
 /** The demo crew and its Saturday plan on an app whose clock the test moves. */
-export async function createCardFixture(): Promise<CardFixture> {
+export async function createCardFixture(
+  envOverrides: Record<string, string> = {},
+): Promise<CardFixture> {
   let nowMs = Date.parse('2026-06-01T09:00:00Z')
-  const testApp = createTestApp({}, { clock: () => new Date(nowMs) })
+  const testApp = createTestApp(envOverrides, { clock: () => new Date(nowMs) })
   await seedDemo(testApp.database, nowMs)
   const { app } = testApp
   const signIn = (email: string) => signInCookie(app, email, demoPassword)

@@ -2,6 +2,7 @@ import { hashPassword } from '../../server/auth/passwords'
 import { sessionCookie } from '../../server/auth/session-cookie'
 import { createSessionStore } from '../../server/auth/sessions'
 import { issuePasswordReset } from '../../server/auth/password-resets'
+import { issueEmailVerification } from '../../server/auth/email-verifications'
 import { memberships, teams, users } from '../../server/db/schema'
 import { createInvitation } from '../../server/teams/invitations'
 import type { TeamRole } from '../../shared/schemas/teams'
@@ -29,7 +30,8 @@ let sharedHash: Promise<string> | undefined
 
 /**
  * One team with a viewer, an editor, an admin and a second viewer to act on ("target"); a second
- * team with its own admin; a pending invitation and a reset link. Written straight into the
+ * team with its own admin; a pending invitation, a reset link and an address confirmation link.
+ * Every address is confirmed. Written straight into the
  * database (one argon2 hash shared by every user) so a fresh fixture per request stays cheap.
  */
 export async function createTeamFixture(): Promise<TeamFixture> {
@@ -49,7 +51,14 @@ export async function createTeamFixture(): Promise<TeamFixture> {
   const userId = (email: string, name: string) =>
     db
       .insert(users)
-      .values({ email, name, passwordHash, createdAtMs: nowMs, updatedAtMs: nowMs })
+      .values({
+        email,
+        name,
+        passwordHash,
+        emailVerifiedAtMs: nowMs,
+        createdAtMs: nowMs,
+        updatedAtMs: nowMs,
+      })
       .returning()
       .get().id
   const ids = Object.fromEntries(
@@ -97,6 +106,7 @@ export async function createTeamFixture(): Promise<TeamFixture> {
       invitationId: String(invitation.invitation.id),
       invitationToken: invitation.token,
       resetToken: issuePasswordReset(db, ids.target, nowMs),
+      verificationToken: issueEmailVerification(db, ids.target, nowMs),
       ...resourceIds,
       ...logIds,
       ...planIds,

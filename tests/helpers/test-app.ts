@@ -24,6 +24,8 @@ export const testSessionSecret = 'test-secret-that-is-long-enough-for-hs256-0123
 export interface TestAppOptions {
   /** A fake clock, e.g. to step past a token's expiry. */
   clock?: Clock
+  /** Receives the console copy of each caught message. */
+  print?: (text: string) => void
 }
 
 /** A fresh, migrated database and the app built on it, without a port (supertest drives it). */
@@ -42,7 +44,13 @@ export function createTestApp(
   const database = openDatabase(join(dataDir, 'test.db'))
   runMigrations(database)
   const clock = options.clock ?? systemClock
-  const mail = createMailer({ smtpUrl: env.SMTP_URL, from: env.MAIL_FROM, clock, log: () => {} })
+  const mail = createMailer({
+    smtpUrl: env.SMTP_URL,
+    from: env.MAIL_FROM,
+    clock,
+    log: () => {},
+    operatorCopy: { mailDir: join(dataDir, 'mail'), print: options.print ?? (() => {}) },
+  })
   const app = createApp({
     env,
     database,

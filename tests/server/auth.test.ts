@@ -8,6 +8,7 @@ import {
   otherStrongPassword,
   sessionCookieOf,
   signInCookie,
+  mailsTo,
   signUp,
   strongPassword,
   tokenInMail,
@@ -28,17 +29,31 @@ function start(overrides: Record<string, string> = {}, clock?: () => Date): Test
 const me = (app: TestApp, cookie: string) =>
   request(app.app).get('/api/v1/auth/me').set('Cookie', cookie)
 
+/** Sign-up answers before making the account; this waits for that work, then signs in. */
+async function signUpAndSignIn(app: TestApp, email: string) {
+  const answer = await request(app.app)
+    .post('/api/v1/auth/sign-up')
+    .send({ email, name: 'Pat', password: strongPassword })
+    .expect(202)
+  await app.mail.settled()
+  const signedIn = await request(app.app)
+    .post('/api/v1/auth/sign-in')
+    .send({ email: email.trim().toLowerCase(), password: strongPassword })
+    .expect(200)
+  return { answer, signedIn }
+}
+
 describe('sign-up and the session cookie', () => {
-  it('creates the account with a personal team and sets a locked-down cookie', async () => {
-    const { app } = start()
-    const response = await request(app)
-      .post('/api/v1/auth/sign-up')
-      .send({ email: '  Pat@Crew.Example ', name: 'Pat', password: strongPassword })
-      .expect(201)
-    expect(response.body.user).toMatchObject({ email: 'pat@crew.example', name: 'Pat' })
+  it('makes the account with a personal team, signs nobody in, and the cookie comes at sign-in', async () => {
+    const testApp = start()
+    const { answer, signedIn } = await signUpAndSignIn(testApp, '  Pat@Crew.Example ')
+    // The answer must not tell whether an account was made, so it cannot carry a session.
+    expect(answer.headers['set-cookie']).toBeUndefined()
+    expect(signedIn.body.user).toMatchObject({ email: 'pat@crew.example', name: 'Pat' })
+    expect(signedIn.body.emailVerified).toBe(false)
     // Source: issue 5 ("a personal team for each new user").
-    expect(response.body.teams).toEqual([expect.objectContaining({ role: 'admin' })])
-    const cookie = (response.headers['set-cookie'] as unknown as string[])[0] ?? ''
+    expect(signedIn.body.teams).toEqual([expect.objectContaining({ role: 'admin' })])
+    const cookie = (signedIn.headers['set-cookie'] as unknown as string[])[0] ?? ''
     // Source: RFC 6265 §5.2.5–5.2.6 (HttpOnly, Secure), RFC 6265bis §5.4.7 (SameSite).
     expect(cookie).toMatch(/^loudhour_session=/)
     expect(cookie).toMatch(/; HttpOnly/i)
@@ -48,12 +63,9 @@ describe('sign-up and the session cookie', () => {
   })
 
   it('marks the cookie Secure, with the __Host- prefix, when PUBLIC_URL is https', async () => {
-    const { app } = start({ PUBLIC_URL: 'https://loudhour.example' })
-    const response = await request(app)
-      .post('/api/v1/auth/sign-up')
-      .send({ email: 'pat@crew.example', name: 'Pat', password: strongPassword })
-      .expect(201)
-    const cookie = (response.headers['set-cookie'] as unknown as string[])[0] ?? ''
+    const testApp = start({ PUBLIC_URL: 'https://loudhour.example' })
+    const { signedIn } = await signUpAndSignIn(testApp, 'pat@crew.example')
+    const cookie = (signedIn.headers['set-cookie'] as unknown as string[])[0] ?? ''
     // Source: RFC 6265bis §4.1.3.2 (__Host- needs Secure, Path=/ and no Domain).
     expect(cookie).toMatch(/^__Host-loudhour_session=/)
     expect(cookie).toMatch(/; Secure/i)
@@ -62,7 +74,7 @@ describe('sign-up and the session cookie', () => {
 
   it('stores argon2id at m = 19 MiB, t = 2, p = 1', async () => {
     const testApp = start()
-    await signUp(testApp.app, 'pat@crew.example')
+    await signUp(testApp, 'pat@crew.example')
     const row = testApp.database.db.select().from(users).get()
     // Source: OWASP Password Storage Cheat Sheet, argon2id minimum; PHC string order m, p, t.
     expect(row?.passwordHash).toMatch(/^\$argon2id\$v=19\$m=19456,p=1,t=2\$/)
@@ -89,21 +101,44 @@ describe('sign-up and the session cookie', () => {
     expect(guessable.body.error.code).toBe('weak-password')
   })
 
-  it('refuses a second account for the same address', async () => {
-    const { app } = start()
-    await signUp(app, 'pat@crew.example')
-    const again = await request(app)
-      .post('/api/v1/auth/sign-up')
-      .send({ email: 'PAT@crew.example', name: 'Other', password: otherStrongPassword })
-      .expect(409)
-    expect(again.body.error.issues[0].path).toBe('email')
+  it('answers a second sign-up for an address as it answers a new one, and mails the owner', async () => {
+    const testApp = start()
+    const { app } = testApp
+    await signUp(testApp, 'pat@crew.example')
+    const body = (email: string) => ({ email, name: 'Other', password: otherStrongPassword })
+    const again = await request(app).post('/api/v1/auth/sign-up').send(body('PAT@crew.example'))
+    const fresh = await request(app).post('/api/v1/auth/sign-up').send(body('new@crew.example'))
+    await testApp.mail.settled()
+    // Source: OWASP Authentication Cheat Sheet, "Authentication and error messages" (account
+    // creation must not reveal that an account exists). Same status, same body but the address.
+    expect(again.status).toBe(202)
+    expect(fresh.status).toBe(202)
+    expect(again.body).toEqual({
+      message: 'Check your mail at pat@crew.example: the message there says how to go on.',
+    })
+    expect(fresh.body.message).toBe(again.body.message.replace('pat@', 'new@'))
+    expect(again.headers['set-cookie']).toBeUndefined()
+    const [reminder] = mailsTo(testApp, 'pat@crew.example')
+    expect(reminder?.subject).toBe('You already have a Loudhour account')
+    expect(reminder?.text).toContain('Reset the password: http://localhost:3999/forgot-password')
+    // Nothing changed: the old password still signs in, the one in the second sign-up does not.
+    await signInCookie(app, 'pat@crew.example')
+    await request(app)
+      .post('/api/v1/auth/sign-in')
+      .send({ email: 'pat@crew.example', password: otherStrongPassword })
+      .expect(401)
+    expect(testApp.database.db.select().from(users).all()).toHaveLength(2)
+    expect(mailsTo(testApp, 'new@crew.example')[0]?.subject).toBe(
+      'Confirm your address for Loudhour',
+    )
   })
 })
 
 describe('sign-in', () => {
   it('answers an unknown address and a wrong password alike', async () => {
-    const { app } = start()
-    await signUp(app, 'pat@crew.example')
+    const testApp = start()
+    const { app } = testApp
+    await signUp(testApp, 'pat@crew.example')
     const wrong = await request(app)
       .post('/api/v1/auth/sign-in')
       .send({ email: 'pat@crew.example', password: otherStrongPassword })
@@ -118,8 +153,9 @@ describe('sign-in', () => {
   })
 
   it('throttles failed sign-ins per account with 429 and Retry-After', async () => {
-    const { app } = start()
-    await signUp(app, 'pat@crew.example')
+    const testApp = start()
+    const { app } = testApp
+    await signUp(testApp, 'pat@crew.example')
     const failed = () =>
       request(app)
         .post('/api/v1/auth/sign-in')
@@ -135,7 +171,7 @@ describe('sign-in', () => {
     expect(retryAfterS).toBeLessThanOrEqual(15 * 60)
     expect(blocked.body.error.code).toBe('throttled')
     // Another account from the same address is not locked with it.
-    await signUp(app, 'sam@crew.example')
+    await signUp(testApp, 'sam@crew.example')
     await signInCookie(app, 'sam@crew.example')
   })
 })
@@ -143,7 +179,7 @@ describe('sign-in', () => {
 describe('ending sessions', () => {
   it('sign-out ends the session on the server: the old cookie gets 401', async () => {
     const testApp = start()
-    const { cookie } = await signUp(testApp.app, 'pat@crew.example')
+    const { cookie } = await signUp(testApp, 'pat@crew.example')
     await me(testApp, cookie).expect(200)
     await request(testApp.app).post('/api/v1/auth/sign-out').set('Cookie', cookie).expect(204)
     await me(testApp, cookie).expect(401)
@@ -151,7 +187,7 @@ describe('ending sessions', () => {
 
   it('sign-out everywhere ends every session of the account', async () => {
     const testApp = start()
-    const { cookie: first } = await signUp(testApp.app, 'pat@crew.example')
+    const { cookie: first } = await signUp(testApp, 'pat@crew.example')
     const second = await signInCookie(testApp.app, 'pat@crew.example')
     await request(testApp.app)
       .post('/api/v1/auth/sign-out-everywhere')
@@ -163,7 +199,7 @@ describe('ending sessions', () => {
 
   it('a password change ends other sessions and keeps this browser signed in', async () => {
     const testApp = start()
-    const { cookie: other } = await signUp(testApp.app, 'pat@crew.example')
+    const { cookie: other } = await signUp(testApp, 'pat@crew.example')
     const here = await signInCookie(testApp.app, 'pat@crew.example')
     const wrongCurrent = await request(testApp.app)
       .post('/api/v1/auth/password')
@@ -184,7 +220,7 @@ describe('ending sessions', () => {
 
   it('refuses tokens that were forged, unsigned or meant for another audience', async () => {
     const testApp = start()
-    const { me: account } = await signUp(testApp.app, 'pat@crew.example')
+    const { me: account } = await signUp(testApp, 'pat@crew.example')
     const claims = { sid: 'made-up', sub: String(account.user.id) }
     const withKey = (secret: string, audience: string) =>
       new SignJWT(claims)
@@ -212,7 +248,7 @@ describe('ending sessions', () => {
   it('expires after a week idle, and after thirty days however busy', async () => {
     const time = fakeClock()
     const testApp = start({}, time.clock)
-    const { cookie } = await signUp(testApp.app, 'pat@crew.example')
+    const { cookie } = await signUp(testApp, 'pat@crew.example')
     time.advance(sessionIdleMs - 60_000)
     await me(testApp, cookie).expect(200)
     time.advance(sessionIdleMs - 60_000)
@@ -234,7 +270,7 @@ describe('ending sessions', () => {
 describe('same-origin protection', () => {
   it('refuses a cross-site POST that carries a valid session cookie', async () => {
     const testApp = start()
-    const { cookie } = await signUp(testApp.app, 'pat@crew.example')
+    const { cookie } = await signUp(testApp, 'pat@crew.example')
     const createTeam = () =>
       request(testApp.app).post('/api/v1/teams').set('Cookie', cookie).send({ name: 'Crew' })
     // Source: OWASP CSRF Prevention Cheat Sheet (verify Origin; Fetch Metadata Sec-Fetch-Site).
@@ -259,7 +295,7 @@ describe('same-origin protection', () => {
 describe('password reset', () => {
   it('answers 202 for any address and mails a single-use link to real accounts only', async () => {
     const testApp = start()
-    const { cookie } = await signUp(testApp.app, 'pat@crew.example')
+    const { cookie } = await signUp(testApp, 'pat@crew.example')
     const ask = (email: string) =>
       request(testApp.app).post('/api/v1/auth/password-reset').send({ email })
     const unknown = await ask('nobody@crew.example').expect(202)
@@ -270,7 +306,11 @@ describe('password reset', () => {
       .get('/api/v1/dev/outbox')
       .set('Cookie', cookie)
       .expect(200)
-    expect(messages.body.messages).toHaveLength(1)
+    // The owner reads their own mail, newest first: the reset, then the sign-up's confirmation.
+    expect(messages.body.messages.map((mail: { subject: string }) => mail.subject)).toEqual([
+      'Reset your Loudhour password',
+      'Confirm your address for Loudhour',
+    ])
     const [message] = messages.body.messages
     expect(message.to).toBe('pat@crew.example')
     expect(message.text).toContain('http://localhost:3999/reset-password?token=')
@@ -295,7 +335,7 @@ describe('password reset', () => {
   it('refuses a reset link older than 30 minutes', async () => {
     const time = fakeClock()
     const testApp = start({}, time.clock)
-    const { cookie } = await signUp(testApp.app, 'pat@crew.example')
+    const { cookie } = await signUp(testApp, 'pat@crew.example')
     await request(testApp.app)
       .post('/api/v1/auth/password-reset')
       .send({ email: 'pat@crew.example' })

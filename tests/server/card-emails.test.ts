@@ -1,6 +1,8 @@
 import request from 'supertest'
 import { afterEach, beforeEach, describe, expect, it } from 'vitest'
+import { eq } from 'drizzle-orm'
 import { shareLinks } from '../../server/db/schema-resources'
+import { users } from '../../server/db/schema'
 import { planBody } from '../helpers/plan-fixture'
 import { createCardFixture, tokenOf, type CardFixture } from '../helpers/card-fixture'
 
@@ -55,8 +57,9 @@ describe('e-mailing the card', () => {
     )
     expect(swapTimes.length).toBeGreaterThan(0)
     for (const message of messages) {
-      // Source: the Gregorian calendar: 13 June 2026 is a Saturday
-      expect(message.subject).toBe('Runtime card: Saturday market, Saturday 13 June 2026')
+      // Source: the Gregorian calendar: 13 June 2026 is a Saturday. The plan's name stays out of
+      // the subject (what an editor typed could pose as anything there).
+      expect(message.subject).toBe('Loudhour runtime card, Saturday 13 June 2026')
       expect(message.html).toContain(`href="${url}"`)
       expect(message.text).toContain(url)
       for (const time of swapTimes) {
@@ -125,6 +128,32 @@ describe('e-mailing the card', () => {
     }
     expect(await outbox()).toEqual([])
     expect(fixture.testApp.database.db.select().from(shareLinks).all()).toEqual([])
+  })
+
+  it('is for confirmed addresses: an unconfirmed editor gets 403 and nothing is sent', async () => {
+    fixture.testApp.database.db
+      .update(users)
+      .set({ emailVerifiedAtMs: null })
+      .where(eq(users.email, 'editor@alder-creek.example'))
+      .run()
+    const refused = await sendCard({ to: ['crew@volunteers.example'] }).expect(403)
+    expect(refused.body.error.code).toBe('email-unverified')
+    expect(await outbox()).toEqual([])
+    expect(fixture.testApp.database.db.select().from(shareLinks).all()).toEqual([])
+  })
+
+  it("counts each address against the team's daily cap, and a refused sending leaves no link", async () => {
+    await fixture.testApp.close()
+    fixture = await createCardFixture({ TEAM_MAIL_DAILY_LIMIT: '3' })
+    await sendCard({ to: ['a@volunteers.example', 'b@volunteers.example'] }).expect(201)
+    const capped = await sendCard({
+      to: ['c@volunteers.example', 'd@volunteers.example'],
+    }).expect(429)
+    expect(capped.body.error.code).toBe('team-mail-cap')
+    // Nothing has aged yet: room comes when the first two are a day old (RFC 9110 §10.2.3, seconds).
+    expect(capped.headers['retry-after']).toBe(String(24 * 60 * 60))
+    expect(fixture.testApp.database.db.select().from(shareLinks).all()).toHaveLength(1)
+    await sendCard({ to: ['c@volunteers.example'] }).expect(201)
   })
 
   it('is for editors: viewers get 403, other teams 404, and nothing is sent', async () => {

@@ -12,7 +12,7 @@ afterEach(async () => {
   testApp = undefined
 })
 
-const message = (to: string, teamIds: number[]) => ({
+const message = (to: string, teamId: number) => ({
   ...invitationMail({
     to,
     teamId: 1,
@@ -21,7 +21,7 @@ const message = (to: string, teamIds: number[]) => ({
     role: 'viewer',
     url: 'http://x.example/a',
   }),
-  shownToAdminsOf: teamIds,
+  sentByTeamId: teamId,
 })
 
 describe('the built-in mail catcher', () => {
@@ -35,14 +35,15 @@ describe('the built-in mail catcher', () => {
     try {
       const port = await mailer.start()
       expect(port).toBeGreaterThan(0)
-      await mailer.send(message('sam@crew.example', [1]))
-      const [received] = mailer.outbox?.listFor([1]) ?? []
+      await mailer.send(message('sam@crew.example', 1))
+      const [received] =
+        mailer.outbox?.listFor({ adminTeamIds: [1], verifiedEmail: undefined }) ?? []
       // The recipient comes from the SMTP envelope (RCPT TO), so it proves the message went through.
       expect(received?.to).toBe('sam@crew.example')
-      expect(received?.subject).toBe('Join Crew on Loudhour')
+      expect(received?.subject).toBe('An invitation to a team on Loudhour')
       expect(received?.html).toContain('<a href="http://x.example/a"')
       expect(received?.text).toContain('Accept the invitation: http://x.example/a')
-      expect(mailer.outbox?.listFor([2])).toEqual([])
+      expect(mailer.outbox?.listFor({ adminTeamIds: [2], verifiedEmail: undefined })).toEqual([])
     } finally {
       await mailer.close()
     }
@@ -67,15 +68,16 @@ describe('the built-in mail catcher', () => {
     const port = typeof address === 'object' && address ? address.port : 0
     try {
       testApp = createTestApp({ SMTP_URL: `smtp://127.0.0.1:${port}` })
-      const admin = await signUp(testApp.app, 'admin@crew.example')
+      const admin = await signUp(testApp, 'admin@crew.example')
       expect(admin.me.devOutbox).toBe(false)
       await request(testApp.app)
         .post(`/api/v1/teams/${admin.me.teams[0]?.id}/invitations`)
         .set('Cookie', admin.cookie)
         .send({ email: 'sam@crew.example', role: 'viewer' })
         .expect(201)
-      expect(received).toEqual(['sam@crew.example'])
-      // Source: design/api.md ("never with a real SMTP_URL").
+      // The sign-up's confirmation link, then the invitation: both through the real server.
+      expect(received).toEqual(['admin@crew.example', 'sam@crew.example'])
+      // Source: README.md, configuration (the catcher and its outbox only without SMTP_URL).
       await request(testApp.app).get('/api/v1/dev/outbox').set('Cookie', admin.cookie).expect(404)
     } finally {
       await new Promise<void>((resolve) => server.close(() => resolve()))
@@ -84,8 +86,8 @@ describe('the built-in mail catcher', () => {
 
   it('shows each admin only the mail of their own teams, and escapes names in HTML', async () => {
     testApp = createTestApp()
-    const alder = await signUp(testApp.app, 'admin@alder.example', 'Ada')
-    const harbor = await signUp(testApp.app, 'admin@harbor.example', 'Kit')
+    const alder = await signUp(testApp, 'admin@alder.example', 'Ada')
+    const harbor = await signUp(testApp, 'admin@harbor.example', 'Kit')
     const team = await request(testApp.app)
       .post('/api/v1/teams')
       .set('Cookie', alder.cookie)
@@ -100,8 +102,9 @@ describe('the built-in mail catcher', () => {
       .get('/api/v1/dev/outbox')
       .set('Cookie', alder.cookie)
       .expect(200)
-    expect(alderOutbox.body.messages).toHaveLength(1)
+    // Ada's own confirmation mail is hers to read too; the invitation is the newest.
     const [mail] = alderOutbox.body.messages
+    expect(mail.subject).toBe('An invitation to a team on Loudhour')
     expect(mail.html).toContain('&lt;b&gt;Fish &amp; Chips&lt;/b&gt;')
     expect(mail.html).not.toContain('<b>Fish')
     expect(mail.text).toContain('"<b>Fish & Chips</b>"')
@@ -110,6 +113,9 @@ describe('the built-in mail catcher', () => {
       .get('/api/v1/dev/outbox')
       .set('Cookie', harbor.cookie)
       .expect(200)
-    expect(harborOutbox.body.messages).toEqual([])
+    expect(
+      harborOutbox.body.messages.map((message: { subject: string }) => message.subject),
+    ).toEqual(['Confirm your address for Loudhour'])
+    expect(harborOutbox.body.messages[0].to).toBe('admin@harbor.example')
   })
 })

@@ -5,7 +5,6 @@ import { migrate } from 'drizzle-orm/better-sqlite3/migrator'
 import { afterEach, describe, expect, it } from 'vitest'
 import { openDatabase, type DatabaseHandle } from '../../server/db/client'
 import { migrationsFolder, migrationStatus, runMigrations } from '../../server/db/migrate'
-import { memberships, teams, users } from '../../server/db/schema'
 import { seedResourceFixture } from '../helpers/resource-fixture'
 
 // Migrations applied to databases that already hold data: the accounts first, then the parts,
@@ -60,25 +59,26 @@ function rowCounts({ sqlite }: DatabaseHandle, tables: string[]): Record<string,
   )
 }
 
-/** A user and a team, as the accounts tables hold them. */
-function insertCrew({ db }: DatabaseHandle, nowMs: number) {
-  const userId = db
-    .insert(users)
-    .values({
-      email: 'kai@crew.example',
-      name: 'Kai',
-      passwordHash: 'x',
-      createdAtMs: nowMs,
-      updatedAtMs: nowMs,
-    })
-    .returning()
-    .get().id
-  const teamId = db
-    .insert(teams)
-    .values({ name: 'Crew', createdAtMs: nowMs, updatedAtMs: nowMs })
-    .returning()
-    .get().id
-  db.insert(memberships).values({ teamId, userId, role: 'admin', createdAtMs: nowMs }).run()
+/**
+ * A user and a team, as the accounts tables of the first release hold them. Plain SQL naming
+ * only the columns that release had: Drizzle's insert would name every column of today's schema.
+ */
+function insertCrew({ sqlite }: DatabaseHandle, nowMs: number) {
+  const userId = Number(
+    sqlite
+      .prepare(
+        'insert into users (email, name, password_hash, created_at_ms, updated_at_ms) values (?, ?, ?, ?, ?)',
+      )
+      .run('kai@crew.example', 'Kai', 'x', nowMs, nowMs).lastInsertRowid,
+  )
+  const teamId = Number(
+    sqlite
+      .prepare('insert into teams (name, created_at_ms, updated_at_ms) values (?, ?, ?)')
+      .run('Crew', nowMs, nowMs).lastInsertRowid,
+  )
+  sqlite
+    .prepare('insert into memberships (team_id, user_id, role, created_at_ms) values (?, ?, ?, ?)')
+    .run(teamId, userId, 'admin', nowMs)
   return { userId, teamId }
 }
 
@@ -153,5 +153,34 @@ describe('the parts, rigs and plans migration', () => {
     expect(onDelete('plans')).toMatchObject({ rig_id: 'RESTRICT' })
     expect(onDelete('share_links')).toMatchObject({ plan_id: 'CASCADE' })
     expect(onDelete('discharge_logs')).toMatchObject({ pack_id: 'CASCADE' })
+  })
+})
+
+describe('the mail privacy migration', () => {
+  it('adds the confirmation and mail-count tables over a database in use, keeping every row', () => {
+    const database = freshDatabase()
+    migrate(database.db, { migrationsFolder: migrationsUpTo('0002_') })
+    const nowMs = Date.now()
+    const { userId, teamId } = insertCrew(database, nowMs)
+    seedResourceFixture(database.db, teamId, userId, nowMs)
+    const tables = ['users', 'teams', 'memberships', 'packs', 'rigs', 'rig_accessories']
+    const before = rowCounts(database, tables)
+
+    runMigrations(database)
+    expect(migrationStatus(database).pending).toBe(0)
+    expect(rowCounts(database, tables)).toEqual(before)
+    // Accounts made before it have never shown that they read their mail: they confirm first.
+    expect(database.sqlite.prepare('select email_verified_at_ms as at from users').all()).toEqual([
+      { at: null },
+    ])
+    expect(rowCounts(database, ['email_verifications', 'team_mail_sends'])).toEqual({
+      email_verifications: 0,
+      team_mail_sends: 0,
+    })
+    // The new tables hang off the old ones: deleting the team takes its mail counts with it.
+    database.sqlite
+      .prepare('insert into team_mail_sends (team_id, sent_at_ms) values (?, ?)')
+      .run(teamId, nowMs)
+    expect(foreignKeyProblems(database)).toEqual([])
   })
 })

@@ -19,7 +19,7 @@ interface Crew {
 /** An admin with a team named "Crew" (besides their personal team). */
 async function crew(clock?: () => Date): Promise<Crew> {
   testApp = createTestApp({}, { clock })
-  const admin = await signUp(testApp.app, 'admin@crew.example', 'Ada Admin')
+  const admin = await signUp(testApp, 'admin@crew.example', 'Ada Admin')
   const created = await request(testApp.app)
     .post('/api/v1/teams')
     .set('Cookie', admin.cookie)
@@ -60,11 +60,11 @@ describe('invitations', () => {
       role: 'editor',
     })
 
-    const stranger = await signUp(c.testApp.app, 'stranger@crew.example')
+    const stranger = await signUp(c.testApp, 'stranger@crew.example')
     const refused = await accept(c, stranger.cookie, token).expect(403)
     expect(refused.body.error.code).toBe('wrong-account')
 
-    const sam = await signUp(c.testApp.app, 'sam@crew.example', 'Sam')
+    const sam = await signUp(c.testApp, 'sam@crew.example', 'Sam')
     const accepted = await accept(c, sam.cookie, token).expect(200)
     expect(accepted.body.team).toEqual({ id: c.teamId, name: 'Crew', role: 'editor' })
     const members = await request(c.testApp.app)
@@ -97,7 +97,7 @@ describe('invitations', () => {
     expect(JSON.stringify(stored)).not.toContain(token)
     // Source: issue 5 (7-day expiry); 256-bit tokens are 43 base64url characters (RFC 4648 §5).
     expect(token).toHaveLength(43)
-    await signUp(c.testApp.app, 'sam@crew.example')
+    await signUp(c.testApp, 'sam@crew.example')
     const preview = () => request(c.testApp.app).post('/api/v1/invitations/preview').send({ token })
     time.advance(7 * 24 * 60 * 60 * 1000 - 60_000)
     await preview().expect(200)
@@ -129,7 +129,7 @@ describe('invitations', () => {
   it('saves nothing when the invitation cannot be mailed', async () => {
     // Port 9 (discard) on loopback has no SMTP server here, so the connection is refused.
     testApp = createTestApp({ SMTP_URL: 'smtp://127.0.0.1:9' })
-    const admin = await signUp(testApp.app, 'admin@crew.example')
+    const admin = await signUp(testApp, 'admin@crew.example')
     const teamId = admin.me.teams[0]?.id
     const failed = await request(testApp.app)
       .post(`/api/v1/teams/${teamId}/invitations`)
@@ -160,7 +160,7 @@ describe('roles and the last admin', () => {
   it('applies a role change to the very next request (roles are not in the token)', async () => {
     const c = await crew()
     const token = await invite(c, 'sam@crew.example', 'admin')
-    const sam = await signUp(c.testApp.app, 'sam@crew.example')
+    const sam = await signUp(c.testApp, 'sam@crew.example')
     await accept(c, sam.cookie, token).expect(200)
     const samId = sam.me.user.id
     await request(c.testApp.app)
@@ -201,7 +201,7 @@ describe('roles and the last admin', () => {
       .set('Cookie', c.admin.cookie)
       .expect(409)
     const token = await invite(c, 'sam@crew.example', 'viewer')
-    const sam = await signUp(c.testApp.app, 'sam@crew.example')
+    const sam = await signUp(c.testApp, 'sam@crew.example')
     await accept(c, sam.cookie, token).expect(200)
     await request(c.testApp.app)
       .patch(`/api/v1/teams/${c.teamId}/members/${sam.me.user.id}`)
