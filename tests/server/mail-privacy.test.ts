@@ -162,6 +162,8 @@ describe('who has an account stays private', () => {
       request(app.app)
         .post('/api/v1/auth/sign-up')
         .send({ email: 'pat@crew.example', name: 'Pat', password: strongPassword })
+    // Five an hour is ours (README, "Accounts and mail"), after OWASP Authentication Cheat Sheet's
+    // advice to throttle what an unauthenticated caller can make the server send.
     for (let count = 0; count < 5; count += 1) await attempt().expect(202)
     const refused = await attempt().expect(429)
     expect(Number(refused.headers['retry-after'])).toBeGreaterThan(0)
@@ -181,6 +183,7 @@ describe('only confirmed addresses send mail', () => {
     const app = start({}, { clock: time.clock })
     const pat = await signUp(app, 'pat@crew.example', 'Pat', { confirmed: false })
     const teamId = pat.me.teams[0]!.id
+    // Common practice for services that send mail for their users: only from a confirmed address.
     const refused = await invite(app, pat.cookie, teamId, 'sam@crew.example').expect(403)
     expect(refused.body.error.code).toBe('email-unverified')
     expect(refused.body.error.message).toContain('pat@crew.example')
@@ -197,7 +200,8 @@ describe('only confirmed addresses send mail', () => {
     const confirm = (token: string) =>
       request(app.app).post('/api/v1/auth/email-verification/confirm').send({ token })
     await confirm(again).expect(204)
-    // Single use, and the older link is spent with it.
+    // Single use, and the older link is spent with it (OWASP Forgot Password Cheat Sheet: tokens
+    // are single use; the same holds for any mailed link that proves a mailbox).
     const reused = await confirm(again).expect(400)
     expect(reused.body.error.issues).toEqual([
       {
@@ -222,6 +226,8 @@ describe('only confirmed addresses send mail', () => {
     const app = start({}, { clock: time.clock })
     await signUp(app, 'pat@crew.example', 'Pat', { confirmed: false })
     const token = tokenInMail(mailsTo(app, 'pat@crew.example')[0]!.text)
+    // 48 hours is ours (README, "Accounts and mail"); OWASP Forgot Password Cheat Sheet asks only
+    // that mailed tokens expire.
     time.advance(48 * 60 * 60 * 1000)
     await request(app.app)
       .post('/api/v1/auth/email-verification/confirm')
@@ -230,6 +236,7 @@ describe('only confirmed addresses send mail', () => {
     expect(app.database.db.select().from(emailVerifications).all()[0]?.usedAtMs).toBeNull()
   })
 
+  // A reset link reaches only the account's mailbox, so using it proves that mailbox as well.
   it('counts a completed password reset as a confirmed address', async () => {
     const app = start()
     await signUp(app, 'pat@crew.example', 'Pat', { confirmed: false })

@@ -24,6 +24,19 @@ describe('estimate request schema', () => {
     expect(parsed.amplifier.class).toBe('d')
   })
 
+  // Source: RFC 5322 §2.2 (a CR or LF ends a header line) and Unicode's C0 controls U+0000–U+001F:
+  // a name is one line of plain text wherever it is shown, printed or mailed.
+  it.each(['Main\npack', 'Main\rpack', 'Main\u0000', 'Main\tpack'])(
+    'refuses a control character in a pack name (%j), naming the field',
+    (label) => {
+      const issues = issuesFor((request) => (pack(request).label = label))
+      expect(issues.map((issue) => issue.path)).toEqual([['pack', 'label']])
+      expect(issues[0]?.message).toBe(
+        'Pack name: use no line breaks, tabs or other control characters',
+      )
+    },
+  )
+
   it.each([0, -1, 1.5, 101])('rejects %s cells in series with a plain message', (value) => {
     const issues = issuesFor((request) => (pack(request).seriesCells = value))
     expect(issues[0]?.path).toEqual(['pack', 'seriesCells'])
