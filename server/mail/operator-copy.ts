@@ -1,5 +1,8 @@
-import { chmodSync, mkdirSync, writeFileSync } from 'node:fs'
+import { chmodSync, mkdirSync, readdirSync, rmSync, writeFileSync } from 'node:fs'
 import { join } from 'node:path'
+
+// Ours: weeks of a crew's mail, yet a flood of sign-ups cannot fill the disk; oldest go first.
+export const keptMailFiles = 2000
 
 export interface OperatorCopyOptions {
   /** Folder for the `.eml` files, created owner-only (0700). */
@@ -35,6 +38,13 @@ export function createOperatorCopy(options: OperatorCopyOptions): (mail: CaughtM
     const stamp = mail.receivedAt.toISOString().replaceAll(':', '-')
     const file = join(options.mailDir, `${stamp}-${mail.id}.eml`)
     writeFileSync(file, mail.raw, { mode: 0o600, flag: 'wx' })
+    // Names start with the time, so sorted names are oldest first.
+    const kept = readdirSync(options.mailDir)
+      .filter((name) => name.endsWith('.eml'))
+      .sort()
+    for (const name of kept.slice(0, Math.max(0, kept.length - keptMailFiles))) {
+      rmSync(join(options.mailDir, name), { force: true })
+    }
     options.print(
       [
         `mail to ${mail.to}: ${JSON.stringify(mail.subject)} (${file})`,

@@ -1,9 +1,11 @@
-import { readdirSync, readFileSync, statSync } from 'node:fs'
+import { mkdtempSync, readdirSync, readFileSync, rmSync, statSync } from 'node:fs'
+import { tmpdir } from 'node:os'
 import { join } from 'node:path'
 import request from 'supertest'
 import { afterEach, describe, expect, it } from 'vitest'
 import { emailVerifications, passwordResets, users } from '../../server/db/schema'
 import type { BackgroundMail } from '../../server/mail/mailer'
+import { createOperatorCopy, keptMailFiles } from '../../server/mail/operator-copy'
 import {
   fakeClock,
   mailsTo,
@@ -344,5 +346,32 @@ describe('names are one line of text', () => {
     const me = await request(app.app).get('/api/v1/auth/me').set('Cookie', ada.cookie).expect(200)
     expect(me.body.user.name).toBe('Ada')
     expect(me.body.teams).toHaveLength(1)
+  })
+})
+
+describe("the operator's copy", () => {
+  it('keeps the newest files only, so a flood of mail cannot fill the disk', async () => {
+    const dir = mkdtempSync(join(tmpdir(), 'loudhour-mail-copy-'))
+    try {
+      const copy = createOperatorCopy({ mailDir: join(dir, 'mail'), print: () => {} })
+      const startMs = Date.parse('2026-05-02T09:00:00Z')
+      for (let index = 0; index < keptMailFiles + 3; index += 1) {
+        copy({
+          id: `m${index}`,
+          to: 'pat@crew.example',
+          subject: 'Reset your Loudhour password',
+          text: 'x',
+          raw: 'Subject: x\r\n\r\nx',
+          receivedAt: new Date(startMs + index * 1000),
+        })
+      }
+      const files = readdirSync(join(dir, 'mail')).sort()
+      expect(files).toHaveLength(keptMailFiles)
+      // The three oldest went; the newest stays.
+      expect(files[0]).toBe('2026-05-02T09-00-03.000Z-m3.eml')
+      expect(files.at(-1)).toContain(`-m${keptMailFiles + 2}.eml`)
+    } finally {
+      rmSync(dir, { recursive: true, force: true })
+    }
   })
 })
