@@ -9,14 +9,14 @@ import { createTeamFixture, type TeamFixture } from '../helpers/team-fixture'
 let fixture: TeamFixture
 let server: Server
 let baseUrl: string
-let logBytes: Buffer
+let logBytes: Uint8Array<ArrayBuffer>
 const idleMs: number[] = []
 const duringMs: number[] = []
 const uploadMs: number[] = []
 
 /** A log of at least `targetBytes`: 1 s samples, 2 A, falling from 41 V to the fixture pack's
  * 30 V cutoff (10 cells × 3 V). */
-function largeLog(targetBytes: number): Buffer {
+function largeLog(targetBytes: number): Uint8Array<ArrayBuffer> {
   const header = 'time_s,voltage_v,current_a'
   // Rows are 19 to 22 bytes, 21.4 on average over a run this long.
   const rows = Math.ceil(targetBytes / 21.4)
@@ -25,7 +25,7 @@ function largeLog(targetBytes: number): Buffer {
     const voltageV = 41 - (11 * row) / (rows - 1)
     lines.push(`${row},${voltageV.toFixed(4)},2.0000`)
   }
-  return Buffer.from(lines.join('\n') + '\n')
+  return new TextEncoder().encode(lines.join('\n') + '\n')
 }
 
 async function healthLatencyMs(): Promise<number> {
