@@ -68,7 +68,10 @@ export function requestLog(logger: Logger): RequestHandler {
     logger,
     quietReqLogger: true,
     customLogLevel: levelOf,
-    customProps: (req) => ({ ip: (req as Request).ip, accountId: accountIdOf(req) }),
+    // Only once the answer is sent (pino-http also asks at the start, before the session is
+    // read; answering both times would write the address twice).
+    customProps: (req, res) =>
+      res.writableEnded ? { ip: (req as Request).ip, accountId: accountIdOf(req) } : {},
     serializers: {
       req: (req: { method?: string; url?: string; raw?: IncomingMessage }) => ({
         method: req.method,

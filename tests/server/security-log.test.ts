@@ -54,6 +54,12 @@ describe('the security log', { timeout: 60_000 }, () => {
       res: { status: 200 },
     })
     expect(line?.responseTime).toEqual(expect.any(Number))
+    // Each field once: a duplicated key would leave readers to guess which one counts.
+    const raw = log
+      .text()
+      .split('\n')
+      .find((text) => text.includes('/members"'))
+    expect(raw?.match(/"ip":/g)).toHaveLength(1)
     // The query string (search text) and the session cookie stay out.
     expect(log.text()).not.toContain('secret-search')
     expect(log.text()).not.toContain(fixture.cookies.viewer.split('=')[1]!)
