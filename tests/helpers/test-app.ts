@@ -8,6 +8,7 @@ import { runMigrations } from '../../server/db/migrate'
 import { parseEnv, type Env } from '../../server/env'
 import { systemClock, type Clock } from '../../server/clock'
 import { createMailer, type Mailer } from '../../server/mail/mailer'
+import type { Logger } from '../../server/http/log'
 
 export interface TestApp {
   app: Express
@@ -26,6 +27,8 @@ export interface TestAppOptions {
   clock?: Clock
   /** Receives the console copy of each caught message. */
   print?: (text: string) => void
+  /** A logger to read what the app logs (see log-capture.ts); by default the app is silent. */
+  logger?: Logger
 }
 
 /** A fresh, migrated database and the app built on it, without a port (supertest drives it). */
@@ -59,6 +62,7 @@ export function createTestApp(
     mail,
     clock,
     log: () => {},
+    ...(options.logger ? { logger: options.logger } : {}),
   })
   return {
     app,
