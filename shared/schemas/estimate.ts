@@ -14,7 +14,7 @@ interface Bounds {
 }
 
 /** A finite number within bounds, with one plain message naming the field for every failure. */
-function quantity(label: string, bounds: Bounds) {
+export function quantity(label: string, bounds: Bounds) {
   const unit = bounds.unit ? ` ${bounds.unit}` : ''
   const message = bounds.whole
     ? `${label} must be a whole number from ${bounds.min} to ${bounds.max}${unit}`
@@ -35,7 +35,7 @@ function voltage(label: string) {
   return quantity(label, { min: 0, max: MAX_SUPPLY_V, aboveMin: true, unit: 'V' })
 }
 
-function text(label: string, maxLength: number) {
+export function text(label: string, maxLength: number) {
   const message = `${label} must be text of 1 to ${maxLength} characters`
   return z
     .string({ error: message })
