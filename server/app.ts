@@ -22,6 +22,7 @@ import { sameOrigin } from './http/same-origin'
 import { libraryRouter } from './routes/library'
 import { teamResourcesRouter } from './routes/team-resources'
 import { sharedRouter } from './routes/shared'
+import { sharedEventsRouter } from './routes/shared-events'
 
 export interface AppDependencies {
   env: Env
@@ -96,6 +97,7 @@ export function createApp(deps: AppDependencies): Express {
   api.use('/v1/invitations', invitationsRouter(accounts))
   if (mail.outbox) api.use('/v1/dev/outbox', outboxRouter(database.db, mail.outbox))
   api.use('/v1/library', libraryRouter())
+  api.use('/v1/shared/events', sharedEventsRouter(accounts))
   api.use('/v1/shared', sharedRouter(accounts))
   api.use(apiNotFound)
   app.use('/api', api)

@@ -31,7 +31,8 @@ export function sharedCardUrl(publicUrl: string, token: string): string {
   return `${publicUrl}/shared/${token}`
 }
 
-function expiryMs(body: ShareLinkBody, nowMs: number): number | null {
+/** The expiry a body asks for, checked against now; a 400 names `expiresAt`. */
+export function expiryMs(body: ShareLinkBody, nowMs: number): number | null {
   if (!body.expiresAt) return null
   const atMs = Date.parse(body.expiresAt)
   const refuse = (message: string) =>
@@ -45,7 +46,10 @@ function expiryMs(body: ShareLinkBody, nowMs: number): number | null {
   return atMs
 }
 
-function viewOf(row: ShareLinkRow, createdBy: ShareLinkView['createdBy']): ShareLinkView {
+export function viewOf(
+  row: Pick<ShareLinkRow, 'id' | 'label' | 'createdAtMs' | 'expiresAtMs'>,
+  createdBy: ShareLinkView['createdBy'],
+): ShareLinkView {
   return {
     id: row.id,
     label: row.label,

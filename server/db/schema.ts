@@ -104,3 +104,4 @@ export const passwordResets = sqliteTable(
 )
 
 export * from './schema-resources'
+export * from './schema-events'

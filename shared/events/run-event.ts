@@ -143,6 +143,7 @@ export function runEvent(
   plans: readonly EventPlanInput[],
   body: Pick<EventBody, 'pool' | 'chargers'>,
 ): EventAnswer {
+  if (plans.length === 0) return emptyAnswer()
   const runs = plans.map(runPlan)
   const figures = kindFigures(runs)
   const coldestC = Math.min(
@@ -284,6 +285,24 @@ export function runEvent(
   }
 }
 
+function emptyAnswer(): EventAnswer {
+  return {
+    engineVersion: ENGINE_VERSION,
+    lasts: false,
+    startMinute: 0,
+    endMinute: 0,
+    rigs: [],
+    kinds: [],
+    sessions: [],
+    chargersKeepUp: true,
+    longestQueueMinutes: 0,
+    unchargedAtEnd: 0,
+    pool: [],
+    cautions: [],
+    coldestC: DEFAULT_TEMPERATURE_C,
+  }
+}
+
 function eventCautions(
   body: Pick<EventBody, 'pool' | 'chargers'>,
   figures: ReturnType<typeof kindFigures>,
@@ -318,6 +337,15 @@ function eventCautions(
     }
   }
   const known = new Set(figures.keys())
+  for (const entry of body.pool) {
+    if (!known.has(entry.kind) && entry.count > 0) {
+      cautions.push({
+        code: 'event-pool-kind-unused',
+        severity: 'info',
+        message: `The pool lists ${entry.count} packs of a kind (${entry.kind}) that none of these plans uses; they are left out.`,
+      })
+    }
+  }
   for (const [index, charger] of body.chargers.entries()) {
     const unknown = charger.packKinds.filter((key) => !known.has(key))
     if (unknown.length === charger.packKinds.length) {

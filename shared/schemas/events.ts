@@ -82,9 +82,17 @@ export const eventBodySchema = z.object(
   },
   { error: 'An event must be a JSON object' },
 )
+/** What the answer depends on: a preview while the crew edits needs no name or date. */
+export const eventPreviewSchema = eventBodySchema.pick({
+  planIds: true,
+  pool: true,
+  chargers: true,
+})
+
 export const eventUpdateSchema = z.intersection(eventBodySchema, versionFieldSchema)
 
 export type EventBody = z.infer<typeof eventBodySchema>
+export type EventPreviewBody = z.infer<typeof eventPreviewSchema>
 export type EventCharger = z.infer<typeof eventChargerSchema>
 export type EventPoolEntry = z.infer<typeof eventPoolEntrySchema>
 
@@ -210,4 +218,34 @@ export interface EventPlanChoice {
   startTime: string
   kindKey: string
   kindLabel: string
+}
+
+/** An event's card: what the crew lead prints, and what a share link shows (no ids). */
+export interface EventCard {
+  title: string
+  notes: string
+  date: string
+  answer: Omit<EventAnswer, 'rigs'> & { rigs: Omit<EventRigAnswer, 'planId'>[] }
+}
+
+export interface SharedEventCardResponse {
+  card: EventCard
+  expiresAt: string | null
+}
+
+export function eventCardOf(event: {
+  name: string
+  notes: string
+  date: string
+  answer: EventAnswer
+}): EventCard {
+  return {
+    title: event.name,
+    notes: event.notes,
+    date: event.date,
+    answer: {
+      ...event.answer,
+      rigs: event.answer.rigs.map(({ planId: _planId, ...rig }) => rig),
+    },
+  }
 }

@@ -188,4 +188,22 @@ export const authorizationMatrix: MatrixRow[] = [
     expect: team(403, 201, 201),
   },
   { method: 'GET', path: '/api/v1/shared/:token', expect: everyone(200) },
+  // An event's card and its share links, as a plan's.
+  {
+    method: 'GET',
+    path: '/api/v1/teams/:teamId/events/:eventId/share-links',
+    expect: team(200, 200, 200),
+  },
+  {
+    method: 'POST',
+    path: '/api/v1/teams/:teamId/events/:eventId/share-links',
+    body: {},
+    expect: team(403, 201, 201),
+  },
+  {
+    method: 'DELETE',
+    path: '/api/v1/teams/:teamId/events/:eventId/share-links/:eventLinkId',
+    expect: team(403, 204, 204),
+  },
+  { method: 'GET', path: '/api/v1/shared/events/:eventToken', expect: everyone(200) },
 ]
