@@ -229,8 +229,11 @@ export function simulatePool(input: PoolInput): PoolOutcome {
     happening!.run()
   }
 
+  // A pack no charger fits is not queuing: it waits for home, and the answer says so apart.
   for (const pack of waiting) {
-    longestQueueMinutes = Math.max(longestQueueMinutes, input.endMinute - pack.queuedMinute)
+    if (input.chargers.some((charger) => charger.kindKeys.includes(pack.kindKey))) {
+      longestQueueMinutes = Math.max(longestQueueMinutes, input.endMinute - pack.queuedMinute)
+    }
   }
   return {
     demands: outcomes,
