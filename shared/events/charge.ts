@@ -1,6 +1,6 @@
 // How long a pack takes to fill on a charger. Written apart from the engine's discharge run on
 // purpose: the engine may later gain its own charging segment, and both can then share one
-// function (see the events section of docs/events.md).
+// function (docs/events.md, "Later: one charging function").
 import { CHEMISTRY_DATA, type Chemistry } from '../engine/chemistry'
 import { interpolate } from '../engine/table'
 

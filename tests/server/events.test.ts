@@ -8,6 +8,9 @@ import { eventBody } from '../helpers/event-fixture'
 import { planBody } from '../helpers/plan-fixture'
 import { plainRigSpec, teamApi } from '../helpers/resource-fixture'
 import { createTeamFixture, type TeamFixture } from '../helpers/team-fixture'
+import { createTestApp } from '../helpers/test-app'
+import { signInCookie } from '../helpers/accounts'
+import { demoPassword, seedDemo } from '../../server/db/seed'
 
 // Events: /api/v1/teams/:teamId/events, their preview and share links. Who may call what is in
 // the authorization matrix; these check what the routes store, answer and refuse.
@@ -163,5 +166,43 @@ describe('an event share link', () => {
     await editor
       .delete(`/events/${other.body.id}/share-links/${fixture.placeholders.eventLinkId}`)
       .expect(404)
+  })
+})
+
+describe('the demo event', () => {
+  it('is the market crew’s Saturday: three rigs from 08:00 to 14:00, for the crew only', async () => {
+    const testApp = createTestApp()
+    try {
+      await seedDemo(testApp.database, Date.now())
+      const viewer = await signInCookie(testApp.app, 'viewer@alder-creek.example', demoPassword)
+      const me = await request(testApp.app).get('/api/v1/auth/me').set('Cookie', viewer)
+      const alder = teamApi(testApp.app, String(me.body.teams[0].id), viewer)
+      const list = await alder.get('/events').expect(200)
+      expect(list.body.total).toBe(1)
+      const event = list.body.items[0]
+      // Source: the product's demo scenario (a market-stage column rig, a busker cart on a 12 V
+      // lead-acid battery and a wireless-mic announcer box; Saturday 08:00–14:00 at 12 °C).
+      expect(event.answer.rigs.map((rig: { rigName: string }) => rig.rigName)).toEqual([
+        'Market stage columns',
+        'Busker cart',
+        'Announcer box',
+      ])
+      expect(event.answer.startMinute).toBe(8 * 60)
+      expect(event.answer.endMinute).toBe(14 * 60)
+      expect(event.answer.coldestC).toBe(12)
+      // The cart's 12 V lead-acid battery is the one kind that is not lithium.
+      expect(
+        event.answer.kinds
+          .filter((kind: { isLithium: boolean }) => !kind.isLithium)
+          .map((kind: { label: string }) => kind.label),
+      ).toEqual(['Cart battery, 12 V 18 Ah AGM'])
+      const harbor = await signInCookie(testApp.app, 'admin@harbor-lane.example', demoPassword)
+      await request(testApp.app)
+        .get(`/api/v1/teams/${me.body.teams[0].id}/events/${event.id}`)
+        .set('Cookie', harbor)
+        .expect(404)
+    } finally {
+      await testApp.close()
+    }
   })
 })
