@@ -6,11 +6,7 @@ import type { Queryable } from '../db/queryable'
 import { events } from '../db/schema-events'
 import { ApiError, parseInput } from '../http/errors'
 import { rowIdParam } from '../http/params'
-import {
-  createEventShareLink,
-  liveEventShareLinks,
-  revokeEventShareLink,
-} from '../events/event-share-links'
+import { eventLinks } from '../events/event-share-links'
 import { shareLinkBodySchema } from '../../shared/card/schemas'
 
 /*
@@ -42,16 +38,16 @@ export function eventShareLinksRouter(
   const router = Router({ mergeParams: true })
 
   router.get('/', requireTeamRole('viewer'), (req, res) => {
-    res.json({ items: liveEventShareLinks(db, requireTeamEventId(db, req), clock().getTime()) })
+    res.json({ items: eventLinks.live(db, requireTeamEventId(db, req), clock().getTime()) })
   })
 
   router.post('/', requireTeamRole('editor'), (req, res) => {
     const body = parseInput(shareLinkBodySchema, req.body ?? {})
     const created = db.transaction((tx) =>
-      createEventShareLink(
+      eventLinks.create(
         {
           tx,
-          eventId: requireTeamEventId(tx, req),
+          ownerId: requireTeamEventId(tx, req),
           userId: signedInUser(req).user.id,
           nowMs: clock().getTime(),
           publicUrl,
@@ -65,7 +61,7 @@ export function eventShareLinksRouter(
   router.delete('/:eventLinkId', requireTeamRole('editor'), (req, res) => {
     const linkId = rowIdParam(req, 'eventLinkId', 'No such share link on this event.')
     const revoked = db.transaction((tx) =>
-      revokeEventShareLink(tx, requireTeamEventId(tx, req), linkId, clock().getTime()),
+      eventLinks.revoke(tx, requireTeamEventId(tx, req), linkId, clock().getTime()),
     )
     if (!revoked) throw new ApiError(404, 'not-found', 'No such share link on this event.')
     res.status(204).end()

@@ -2,7 +2,7 @@ import type { Queryable } from '../../server/db/queryable'
 import { insertOwnedItem } from '../../server/resources/resource-definition'
 import { planDefinition } from '../../server/routes/plans'
 import { eventDefinition } from '../../server/routes/events'
-import { createEventShareLink } from '../../server/events/event-share-links'
+import { eventLinks } from '../../server/events/event-share-links'
 import { eventBodySchema } from '../../shared/schemas/events'
 import { planBodySchema } from '../../shared/schemas/plans'
 import { planBody } from './plan-fixture'
@@ -40,8 +40,8 @@ export function seedEventFixture(
     eventDefinition,
     eventBodySchema.parse({ ...eventBody, planIds: [planId] }),
   )
-  const link = createEventShareLink(
-    { tx: db, eventId, userId: ids.userId, nowMs, publicUrl: 'http://localhost:3999' },
+  const link = eventLinks.create(
+    { tx: db, ownerId: eventId, userId: ids.userId, nowMs, publicUrl: 'http://localhost:3999' },
     { label: 'Volunteers' },
   )
   return {

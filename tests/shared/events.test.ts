@@ -2,7 +2,11 @@
 // crew must bring. Each expected value is worked by hand beside it.
 import fc from 'fast-check'
 import { describe, expect, it } from 'vitest'
-import { chargeHoursToFull, socAfterChargingPct } from '../../shared/events/charge'
+import {
+  chargeHoursToFull,
+  socAfterChargingPct,
+  type ChargeablePack,
+} from '../../shared/events/charge'
 import { simulatePool, type PoolDemand } from '../../shared/events/pool'
 import { runEvent, type EventPlanInput } from '../../shared/events/run-event'
 import { packKindKey } from '../../shared/events/pack-kinds'
@@ -167,7 +171,7 @@ describe('the pool over the day (simulatePool)', () => {
           const endMinute = Math.max(...demands.map((demand) => demand.turns.at(-1)!.endMinute))
           const input = {
             demands,
-            packs: new Map([
+            packs: new Map<string, ChargeablePack>([
               ['a', toolPack5Ah],
               ['b', { chemistry: 'lead-acid' as const, seriesCells: 6, capacityAh: 18 }],
             ]),
