@@ -1,7 +1,8 @@
 import { Router } from 'express'
 import type { Queryable } from '../db/queryable'
 import { events } from '../db/schema-events'
-import { requireTeamRole, teamMembership } from '../auth/require'
+import { requireTeamRole, signedInUser, teamMembership } from '../auth/require'
+import { minuteMs, throttle } from '../http/throttle'
 import { parseInput } from '../http/errors'
 import {
   answerFor,
@@ -61,7 +62,16 @@ export const eventDefinition: ResourceDefinition<typeof events, EventBody, Event
 export function eventsRouter(context: ResourceContext): Router {
   const router = Router({ mergeParams: true })
   // The answer for an unsaved body, while the crew edits; nothing is written.
-  router.post('/preview', requireTeamRole('viewer'), (req, res) => {
+  // Each preview runs the engine for every plan, so one account may ask only so often.
+  const previewThrottle = throttle({
+    name: 'event_preview',
+    windowMs: minuteMs,
+    // Ours: a crew lead typing in the form asks a few times a minute.
+    limit: 120,
+    key: (req) => String(signedInUser(req).user.id),
+    message: 'Too many event previews from this account. Wait a minute and try again.',
+  })
+  router.post('/preview', requireTeamRole('viewer'), previewThrottle, (req, res) => {
     const body = parseInput(eventPreviewSchema, req.body)
     res.json(answerFor(context.db, teamMembership(req).teamId, body))
   })
