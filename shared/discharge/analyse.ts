@@ -151,7 +151,7 @@ function plateau(
 /**
  * R = −ΔV/ΔI at each step of the current (Thevenin model of the pack, V = OCV − I·R), with each
  * side's voltage taken on its plateau's trend at the middle of the step; the median of the steps
- * resists outliers (engine.md §10 as documented in docs/estimate-api.md).
+ * resists outliers (docs/estimate-api.md, "Discharge logs").
  */
 function resistanceFromSteps(samples: readonly DischargeSample[]): { ohm?: number; steps: number } {
   const meanCurrentA = samples.reduce((sum, sample) => sum + sample.currentA, 0) / samples.length

@@ -106,7 +106,7 @@ const calibrationSteps = 8
 const calibrationToleranceAh = 1e-6
 
 /**
- * State of health from a measured discharge (engine.md §10, as in docs/estimate-api.md): the
+ * State of health from a measured discharge (docs/estimate-api.md, "Discharge logs"): the
  * health at which the model of this pack, run at the log's average current and temperature down
  * to the log's cutoff, delivers what the log delivered. Measuring against the model of a new pack
  * (not the label's Ah) keeps the rate loss (I·R sag and Peukert) from being counted twice once the
