@@ -8,7 +8,9 @@ import type {
   StopReason,
 } from '../schemas/estimate'
 import type { CompareRequest, CompareRow } from '../schemas/compare'
+import { CHEMISTRY_DATA } from './chemistry'
 import { prepareRig, runPrepared, summarise } from './estimate'
+import { resolveRequest } from './resolve'
 import type { RunOutcome } from './run'
 
 /** Most packs the "packs needed" search will try (the schema's limit on packs on hand). */
@@ -55,6 +57,24 @@ export interface PackComparisonRow {
   peakOverRating: boolean | null
   dropoutRisk: boolean
   warningCodes: string[]
+}
+
+/**
+ * Whether a pack's voltage window (full off the charger down to its cutoff) sits inside what the
+ * rig's amplifier and its directly fed parts take: the candidates a comparison starts from. A
+ * quick screen on the figures given; the full answer is the row's `fits`.
+ */
+export function packWindowSuits(request: EstimateRequest, pack: PackSpec): boolean {
+  const chemistry = CHEMISTRY_DATA[pack.chemistry]
+  // Common practice: a pack is full at the chemistry's charge voltage per cell.
+  const fullV = pack.seriesCells * chemistry.fullCellV
+  const cutoffV = pack.seriesCells * (pack.cutoffCellV ?? chemistry.cutoffCellV)
+  const { amplifier } = resolveRequest(request).resolved
+  if (amplifier.supplyMaxV !== null && fullV > amplifier.supplyMaxV) return false
+  if (amplifier.lockoutV !== null && cutoffV < amplifier.lockoutV) return false
+  return (request.accessories ?? []).every(
+    (part) => part.feed !== 'direct' || (fullV <= part.inputMaxV && cutoffV >= part.inputMinV),
+  )
 }
 
 /** Packs needed to last the schedule: null without a schedule or when 50 would not do. */

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest'
-import { comparePacks } from '../../shared/engine/compare'
+import { comparePacks, packWindowSuits } from '../../shared/engine/compare'
 import { estimate } from '../../shared/engine/estimate'
 import { packSchema } from '../../shared/schemas/estimate'
 import type { EstimateRequest, PackSpec } from '../../shared/schemas/estimate'
@@ -158,5 +158,32 @@ describe('whether a pack fits the rig', () => {
     ])
     expect(row!.fits).toBe(false)
     expect(row!.problems.map((problem) => problem.code)).toContain('cannot-deliver')
+  })
+})
+
+describe('which packs a comparison starts from', () => {
+  it('keeps packs whose window, full to cutoff, sits within the board’s 8–26 V', () => {
+    // Common practice: li-ion is full at 4.20 V and cut at 3.0 V per cell; lead-acid is full at
+    // about 2.4 V and cut at 1.75 V per cell (10.5 V for a 12 V block).
+    const rig = columnRig()
+    expect(packWindowSuits(rig, toolPack(2))).toBe(true) // 21 V – 15 V
+    expect(packWindowSuits(rig, toolPack(2, { seriesCells: 10 }))).toBe(false) // 42 V > 26 V
+    expect(packWindowSuits(rig, toolPack(2, { seriesCells: 2 }))).toBe(false) // 6 V < 8 V
+    const block = packSchema.parse({
+      chemistry: 'lead-acid',
+      seriesCells: 6,
+      parallelCells: 1,
+      cellCapacityAh: 7,
+    })
+    expect(packWindowSuits(rig, block)).toBe(true)
+  })
+
+  it('leaves out packs that a directly fed part cannot take', () => {
+    // Common practice: 5 li-ion cells are 21 V full, over a directly fed 15 V part.
+    const request = variant(columnRig(), {
+      accessories: [{ label: 'Mixer', powerW: 3, inputMinV: 9, inputMaxV: 15, feed: 'direct' }],
+    })
+    expect(packWindowSuits(request, toolPack(2))).toBe(false)
+    expect(packWindowSuits(request, toolPack(2, { seriesCells: 3 }))).toBe(true) // 12.6 V – 9 V
   })
 })
