@@ -66,9 +66,9 @@ describe('a discharge log on the pack page, in Chromium', () => {
 
     // Against a new pack at 2 A (which itself stops short of 5 Ah), the health is above 80 %.
     const acceptButton = page.getByRole('button', {
-      name: /^Use [\d.]+\u00a0% as the pack's health$/,
+      name: /^Use [\d.]+\s% as the pack's health$/,
     })
-    const healthText = /Use ([\d.]+)\u00a0%/.exec((await acceptButton.textContent()) ?? '')?.[1]
+    const healthText = /Use ([\d.]+)\s%/.exec((await acceptButton.textContent()) ?? '')?.[1]
     expect(Number(healthText)).toBeGreaterThan(80)
     await acceptButton.click()
     await page.getByText(`Health: ${healthText}\u00a0%.`).waitFor()
