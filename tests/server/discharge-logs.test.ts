@@ -354,6 +354,23 @@ describe('accepting a log as the pack health figure', () => {
     expect((await readPack()).version).toBe(1)
   })
 
+  it('refuses a log that a new pack of this spec could not have given', async () => {
+    // Ohm's law: 10 cells of 2 Ω in series, 2 in parallel, are 10 Ω; 2 A sags 20 V from 42 V,
+    // below the 30 V cutoff at once, so no health can be measured against such a pack.
+    await editorApi()
+      .put(`/packs/${packId}`, { ...packBody, cellResistanceOhm: 2, version: 1 })
+      .expect(200)
+    const created = await upload(csvOf(twoAmpsTwoHours, plainHeader, plainCells)).expect(201)
+    expect(created.body.calibration).toBeNull()
+    expect(created.body.healthPct).toBeCloseTo(80, 7)
+    const response = await editorApi().post(
+      `/packs/${packId}/discharge-logs/${created.body.id}/accept`,
+    )
+    expect(response.status).toBe(400)
+    expect(response.body.error.code).toBe('log-not-comparable')
+    expect(await readPack()).toMatchObject({ version: 2 })
+  })
+
   it('refuses a health figure beyond what a pack can be saved with', async () => {
     // 4 A for 2 h is 8 Ah of a rated 5 Ah: 160 %, above the pack schema's 120 % ceiling (and
     // more still against a new pack at 4 A).
