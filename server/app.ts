@@ -15,6 +15,7 @@ import { createLogger, requestLog, type Logger } from './http/log'
 import { noStore } from './http/no-store'
 import { staticClient } from './http/static-client'
 import { healthRouter } from './routes/health'
+import { compareRouter } from './routes/compare'
 import { estimateRouter } from './routes/estimate'
 import { authRouter } from './routes/auth'
 import { teamsRouter } from './routes/teams'
@@ -100,6 +101,7 @@ export function createApp(deps: AppDependencies): Express {
   api.use(authenticate(accounts.db, accounts.sessions, accounts.cookie))
   api.use('/health', healthRouter(database))
   api.use('/v1/estimate', estimateRouter())
+  api.use('/v1/compare', compareRouter())
   api.use('/v1/auth', authRouter(accounts))
   api.use('/v1/teams', teamsRouter(accounts))
   api.use('/v1/teams/:teamId', teamResourcesRouter(accounts))

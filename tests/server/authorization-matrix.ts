@@ -47,6 +47,7 @@ export const authorizationMatrix: MatrixRow[] = [
   { method: 'GET', path: '/api/v1/library/converters', expect: everyone(200) },
   // Public; an empty body is refused as invalid input for everyone alike, never 401/403.
   { method: 'POST', path: '/api/v1/estimate', body: {}, expect: everyone(400) },
+  { method: 'POST', path: '/api/v1/compare', body: {}, expect: everyone(400) },
 
   {
     method: 'POST',

@@ -4,6 +4,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { estimateResultSchema } from '../../shared/schemas/estimate'
 import { columnRig } from '../shared/rig-fixtures'
 import { createTestApp, type TestApp } from '../helpers/test-app'
+import { postUntilThrottled } from '../helpers/throttle'
 
 let testApp: TestApp
 beforeAll(() => {
@@ -78,19 +79,8 @@ describe('POST /api/v1/estimate', () => {
   })
 
   it('throttles one address after its minute allowance, with Retry-After', async () => {
-    const own = createTestApp()
-    try {
-      let last = 0
-      let retryAfter: string | undefined
-      for (let attempt = 0; attempt < 130 && last !== 429; attempt++) {
-        const response = await request(own.app).post('/api/v1/estimate').send({})
-        last = response.status
-        retryAfter = response.headers['retry-after']
-      }
-      expect(last).toBe(429)
-      expect(Number(retryAfter)).toBeGreaterThan(0)
-    } finally {
-      await own.close()
-    }
+    const throttled = await postUntilThrottled('/api/v1/estimate', 130)
+    expect(throttled.status).toBe(429)
+    expect(Number(throttled.retryAfter)).toBeGreaterThan(0)
   })
 })
