@@ -20,7 +20,7 @@ import { airlineClass, nominalWh } from './energy'
 import { leadResistanceOhm } from './leads'
 import type { SupplyFloor } from './dropout'
 import type { PackModel } from './pack'
-import { buildPack, packOpenCircuitV } from './pack'
+import { buildPack, packOpenCircuitV, socAtOpenCircuitV } from './pack'
 import {
   averagePowerW,
   averageToClipRatioAtClipping,
@@ -214,6 +214,20 @@ function supplyFloors(resolved: ResolvedRequest, lockoutV: number | null): Suppl
   return floors
 }
 
+/**
+ * How deep the peaks are weighed. A day that ran its course stops at the charge it reached. A run
+ * that stopped on a limit of the rig (lock-out, cutoff, an empty last pack, a pack that cannot
+ * deliver) is weighed down to where the pack itself ends, its open-circuit voltage at the cutoff:
+ * the safe side, and what keeps the figures monotone (a louder level or a thinner lead that stops
+ * the run sooner never reads as easier peaks).
+ */
+function peaksDownToSoc(prepared: PreparedRig, outcome: RunOutcome): number {
+  if (outcome.stopReason === 'schedule-end' || outcome.stopReason === 'time-limit') {
+    return outcome.lowestSoc
+  }
+  return Math.min(outcome.lowestSoc, socAtOpenCircuitV(prepared.pack, prepared.pack.cutoffV))
+}
+
 /** Peak current and voltages over the whole run, and the first part to mute. */
 function peakFigures(
   prepared: PreparedRig,
@@ -227,13 +241,14 @@ function peakFigures(
 } {
   const { rig, resolved } = prepared
   const burstW = burstPerChannelW(prepared.segments)
-  const envelope = peakEnvelope(rig, burstW, outcome.lowestSoc)
+  const downToSoc = peaksDownToSoc(prepared, outcome)
+  const envelope = peakEnvelope(rig, burstW, downToSoc)
   const leads = resolved.leads
   const dropout = dropoutOnset(
     rig,
     burstW,
     supplyFloors(resolved, rig.amplifier.lockoutV),
-    outcome.lowestSoc,
+    downToSoc,
     timeline,
     {
       lead: leads

@@ -92,6 +92,20 @@ export function packOpenCircuitV(pack: PackModel, socFraction: number): number {
   return lower + (position - index) * (upper - lower)
 }
 
+/** The state of charge (fraction) at which the pack at rest reads `openCircuitV`: 0 if it reads
+ *  more even when empty, 1 if it reads less even when full (the OCV rises with charge). */
+export function socAtOpenCircuitV(pack: PackModel, openCircuitV: number): number {
+  const table = pack.openCircuitTableV
+  if (openCircuitV <= table[0]!) return 0
+  if (openCircuitV >= table[OCV_SAMPLES_PER_UNIT]!) return 1
+  let index = 0
+  while (table[index + 1]! < openCircuitV) index++
+  const lower = table[index]!
+  const upper = table[index + 1]!
+  const within = upper > lower ? (openCircuitV - lower) / (upper - lower) : 0
+  return (index + within) / OCV_SAMPLES_PER_UNIT
+}
+
 /** Returned by the current solves when the source cannot deliver the power at all. A number,
  *  not null, so the step loop's hot functions stay monomorphic. */
 export const CANNOT_DELIVER = -1
