@@ -74,7 +74,11 @@ export function wiredVerdict(
 ): ConverterVerdict {
   const exposed = accessory.exposedInput
   if (exposed && windowMaxV > exposed.maxV) return 'over-max'
-  return converterVerdict(windowMinV, windowMaxV, accessory.inputMinV, accessory.inputMaxV)
+  const needs = converterVerdict(windowMinV, windowMaxV, accessory.inputMinV, accessory.inputMaxV)
+  // A converter of unknown range between them keeps the device off the pack's voltage: what the
+  // device needs is a step-down, and no part is over its maximum.
+  if (!exposed && needs === 'over-max') return 'step-down'
+  return needs
 }
 
 /** Whether the chosen feed works over the whole window. */
@@ -128,7 +132,7 @@ export function converterAdvice(
       }
       return `Fit a step-down (buck) converter: a pack straight off the charger gives ${volts(windowMaxV)}, above the accessory's maximum of ${volts(accessory.inputMaxV)}.${isolation}`
     case 'step-down':
-      return `Fit a step-down (buck) converter: the pack (${window}) is above the accessory's ${range} the whole time.${isolation}`
+      return `Fit a step-down (buck) converter: the pack (${window}) goes above the accessory's ${range}.${isolation}`
     case 'step-up':
       return `Fit a step-up (boost) converter: the pack falls to ${volts(windowMinV)}, below the accessory's minimum of ${volts(accessory.inputMinV)}.${isolation}`
     case 'buck-boost':

@@ -104,6 +104,7 @@ describe('supply draw by class', () => {
     idleCurrentA: ampClass === 'a' ? 0 : 0.05,
     biasCurrentA: ampClass === 'a' ? classABiasCurrentA(10, 12, 0.25) : 0,
     lockoutV: null,
+    bulkCapacitanceF: 0,
   })
 
   it('class D draws P_out/η + V_s·I_idle', () => {

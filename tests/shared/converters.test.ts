@@ -82,7 +82,7 @@ describe('accessory draw', () => {
     // Source: engine.md §6; Ohm's law: 5 V at 0.5 A from 12 V is 41.7 % efficient, 3.5 W of heat
     expect(linearRegulatorEfficiency(12, 5)).toBeCloseTo(5 / 12, 12)
     expect(linearRegulatorHeatW(12, 5, 0.5)).toBeCloseTo(3.5, 12)
-    const load = accessoryLoad({ ...linearPreamp, efficiency: 1, idleW: 0 })
+    const load = accessoryLoad({ ...linearPreamp, efficiency: 1, idleW: 0, exposedInput: null })
     expect(load.packCurrentA).toBeCloseTo(0.5, 12)
   })
 
