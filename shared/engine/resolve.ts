@@ -22,7 +22,7 @@ import { DEFAULT_BOUNDARY_GAIN_DB, DEFAULT_LISTENER_DISTANCE_M } from './sound'
 export const DEFAULT_TEMPERATURE_C = 25 // common practice: cells and batteries are rated at 25 °C
 export const DEFAULT_HEALTH_PCT = 100 // ours: a pack as labelled until a discharge log says otherwise
 export const DEFAULT_PACK_COUNT = 1
-export const DEFAULT_PLAYING_PCT = 100 // engine.md §9
+export const DEFAULT_PLAYING_PCT = 100 // ours: playing all the time unless told
 export const DEFAULT_SWAP_BELOW_SOC_PCT = 30 // ours: swap at a break once a pack is below 30 %
 
 export interface ResolvedSegment {
@@ -142,7 +142,7 @@ export function resolveRequest(request: EstimateRequest): {
     programme.playingPct,
     'programme.playingPct',
     DEFAULT_PLAYING_PCT,
-    'engine.md §9 default',
+    'ours: the programme plays all the time unless told',
   )
   const resolvedProgramme = {
     crestFactorDb: programme.crestFactorDb,
@@ -180,7 +180,7 @@ export function resolveRequest(request: EstimateRequest): {
         'pack.peukertExponent',
         chemistry.peukertExponent,
         pack.chemistry === 'lead-acid'
-          ? 'engine.md §1: k ≈ 1.1–1.3'
+          ? 'common practice: lead-acid k ≈ 1.1–1.3'
           : chemistry.isLithium
             ? 'no Peukert for lithium: the I·R sag and a small rate loss from makers’ curves'
             : 'from memory',
@@ -245,14 +245,14 @@ export function resolveRequest(request: EstimateRequest): {
             ),
       efficiency:
         amplifierClass === 'ab'
-          ? 1 // class AB efficiency follows from the supply and the swing (engine.md §4)
+          ? 1 // class AB efficiency follows from the supply and the swing (docs/estimate-api.md)
           : pick(
               amplifier.efficiency,
               'amplifier.efficiency',
               efficiencyFallback,
               amplifierClass === 'a'
                 ? 'Boylestad & Nashelsky ch. 12: series-fed class A at most 25 %'
-                : 'engine.md §4 default',
+                : 'from memory: small class D boards convert about 88 % at useful output',
             ),
       efficiencyGiven: amplifier.efficiency !== undefined,
       minLoadOhm: pick(
@@ -336,7 +336,7 @@ export function resolveRequest(request: EstimateRequest): {
       request.boundaryGainDb,
       'boundaryGainDb',
       DEFAULT_BOUNDARY_GAIN_DB,
-      'engine.md §8: free field',
+      'ours: free field unless a boundary is given',
     ),
     childrenPresent: request.childrenPresent ?? false,
     swapPolicy: {
