@@ -134,7 +134,13 @@ export function dropoutOnset(
   if (!first || first.fraction * 100 < DROPOUT_NEGLIGIBLE_SOC_PCT) return null
   const belowSocPct = first.fraction * 100
   const point = timeline.find((entry) => entry.state === 'on' && entry.socPct < belowSocPct)
-  const targetSoc = Math.max(lowestSocFraction, DROPOUT_NEAR_EMPTY_SOC_PCT / 100)
+  // A dropout over much of the pack is fixed when it is pushed into the last 15 %; one already
+  // there is fixed when it is gone (under 2 %, no risk).
+  const targetPct =
+    belowSocPct < DROPOUT_NEAR_EMPTY_SOC_PCT
+      ? DROPOUT_NEGLIGIBLE_SOC_PCT
+      : DROPOUT_NEAR_EMPTY_SOC_PCT
+  const targetSoc = Math.max(lowestSocFraction, targetPct / 100)
   // The fix must clear every part, so aim at the highest floor.
   const floorV = Math.max(...floors.map((floor) => floor.floorV))
   return {
