@@ -62,6 +62,10 @@ describe('POST /api/v1/estimate', () => {
       .send('{"pack": {')
       .expect(400)
     expect(response.body.error.code).toBe('malformed-json')
+    // The documented error shape (docs/estimate-api.md): every 400 carries an issues list.
+    expect(response.body.error.issues).toEqual([
+      { path: '', message: 'The request body is not valid JSON' },
+    ])
   })
 
   it('never answers 500, whatever JSON arrives', async () => {

@@ -45,6 +45,7 @@ export const airlineClassText: Record<AirlineClass, string> = {
   'up-to-100wh': 'Up to 100 Wh: allowed in carry-on baggage',
   '100-to-160wh': '100 to 160 Wh: only with the airline’s approval',
   'over-160wh': 'Over 160 Wh: not allowed in passenger baggage',
+  'not-lithium': 'Not lithium: the Wh limits for lithium do not apply; ask the airline',
 }
 
 /** Chemistries in words, as the trade says them (never the codes). */
