@@ -15,6 +15,7 @@ import { createLogger, requestLog, type Logger } from './http/log'
 import { noStore } from './http/no-store'
 import { staticClient } from './http/static-client'
 import { healthRouter } from './routes/health'
+import { compareRouter } from './routes/compare'
 import { estimateRouter } from './routes/estimate'
 import { authRouter } from './routes/auth'
 import { teamsRouter } from './routes/teams'
@@ -24,6 +25,7 @@ import { sameOrigin } from './http/same-origin'
 import { libraryRouter } from './routes/library'
 import { teamResourcesRouter } from './routes/team-resources'
 import { sharedRouter } from './routes/shared'
+import { sharedEventsRouter } from './routes/shared-events'
 
 export interface AppDependencies {
   env: Env
@@ -100,12 +102,14 @@ export function createApp(deps: AppDependencies): Express {
   api.use(authenticate(accounts.db, accounts.sessions, accounts.cookie))
   api.use('/health', healthRouter(database))
   api.use('/v1/estimate', estimateRouter())
+  api.use('/v1/compare', compareRouter())
   api.use('/v1/auth', authRouter(accounts))
   api.use('/v1/teams', teamsRouter(accounts))
   api.use('/v1/teams/:teamId', teamResourcesRouter(accounts))
   api.use('/v1/invitations', invitationsRouter(accounts))
   if (mail.outbox) api.use('/v1/dev/outbox', outboxRouter(database.db, mail.outbox))
   api.use('/v1/library', libraryRouter())
+  api.use('/v1/shared/events', sharedEventsRouter(accounts))
   api.use('/v1/shared', sharedRouter(accounts))
   api.use(apiNotFound)
   app.use('/api', api)

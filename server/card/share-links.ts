@@ -1,59 +1,18 @@
-import { and, desc, eq, gt, isNull, or } from 'drizzle-orm'
-import { createLinkToken, hashLinkToken } from '../auth/link-tokens'
 import type { Queryable } from '../db/queryable'
-import { users } from '../db/schema'
 import { shareLinks } from '../db/schema-resources'
-import { ApiError } from '../http/errors'
-import {
-  SHARE_LINK_MAX_DAYS,
-  type CreatedShareLink,
-  type ShareLinkBody,
-  type ShareLinkView,
-} from '../../shared/card/schemas'
+import type { CreatedShareLink, ShareLinkBody, ShareLinkView } from '../../shared/card/schemas'
+import { linkStore } from './link-store'
 
-// Read-only links to a plan's card. The token is made and hashed as invitation and reset tokens
-// are (256 random bits, SHA-256 stored); the address exists only in the answer that creates it.
+// Read-only links to a plan's card (link-store.ts keeps them, as an event's).
 
 type ShareLinkRow = typeof shareLinks.$inferSelect
-
-const dayMs = 24 * 60 * 60 * 1000
-
-/** A link that is neither revoked nor past its expiry at `nowMs`. */
-function isLive(nowMs: number) {
-  return and(
-    isNull(shareLinks.revokedAtMs),
-    or(isNull(shareLinks.expiresAtMs), gt(shareLinks.expiresAtMs, nowMs)),
-  )
-}
 
 /** The client page of a shared card, under PUBLIC_URL (path prefix kept, as in mail links). */
 export function sharedCardUrl(publicUrl: string, token: string): string {
   return `${publicUrl}/shared/${token}`
 }
 
-function expiryMs(body: ShareLinkBody, nowMs: number): number | null {
-  if (!body.expiresAt) return null
-  const atMs = Date.parse(body.expiresAt)
-  const refuse = (message: string) =>
-    new ApiError(400, 'invalid-input', `The request body is not valid. expiresAt: ${message}`, [
-      { path: 'expiresAt', message },
-    ])
-  if (atMs <= nowMs) throw refuse('Expiry must be in the future')
-  if (atMs > nowMs + SHARE_LINK_MAX_DAYS * dayMs) {
-    throw refuse(`Expiry must be at most ${SHARE_LINK_MAX_DAYS} days from now`)
-  }
-  return atMs
-}
-
-function viewOf(row: ShareLinkRow, createdBy: ShareLinkView['createdBy']): ShareLinkView {
-  return {
-    id: row.id,
-    label: row.label,
-    createdAt: new Date(row.createdAtMs).toISOString(),
-    createdBy,
-    expiresAt: row.expiresAtMs === null ? null : new Date(row.expiresAtMs).toISOString(),
-  }
-}
+const planLinks = linkStore(shareLinks, 'planId', sharedCardUrl)
 
 export interface ShareLinkScope {
   tx: Queryable
@@ -64,42 +23,12 @@ export interface ShareLinkScope {
 }
 
 export function createShareLink(scope: ShareLinkScope, body: ShareLinkBody): CreatedShareLink {
-  const { token, tokenHash } = createLinkToken()
-  const row = scope.tx
-    .insert(shareLinks)
-    .values({
-      planId: scope.planId,
-      tokenHash,
-      label: body.label ?? '',
-      createdByUserId: scope.userId,
-      createdAtMs: scope.nowMs,
-      expiresAtMs: expiryMs(body, scope.nowMs),
-    })
-    .returning()
-    .get()
-  const creator = scope.tx
-    .select({ id: users.id, name: users.name })
-    .from(users)
-    .where(eq(users.id, scope.userId))
-    .get()
-  return { ...viewOf(row, creator ?? null), url: sharedCardUrl(scope.publicUrl, token) }
+  return planLinks.create({ ...scope, ownerId: scope.planId }, body)
 }
 
 /** The plan's links that still work, newest first. */
 export function liveShareLinks(db: Queryable, planId: number, nowMs: number): ShareLinkView[] {
-  return db
-    .select({ link: shareLinks, creatorId: users.id, creatorName: users.name })
-    .from(shareLinks)
-    .leftJoin(users, eq(users.id, shareLinks.createdByUserId))
-    .where(and(eq(shareLinks.planId, planId), isLive(nowMs)))
-    .orderBy(desc(shareLinks.createdAtMs), desc(shareLinks.id))
-    .all()
-    .map(({ link, creatorId, creatorName }) =>
-      viewOf(
-        link,
-        creatorId === null || creatorName === null ? null : { id: creatorId, name: creatorName },
-      ),
-    )
+  return planLinks.live(db, planId, nowMs)
 }
 
 /** Stops a link of this plan at once; false when there is no such live link. */
@@ -109,15 +38,7 @@ export function revokeShareLink(
   linkId: number,
   nowMs: number,
 ): boolean {
-  const revoked = db
-    .update(shareLinks)
-    .set({ revokedAtMs: nowMs })
-    .where(
-      and(eq(shareLinks.id, linkId), eq(shareLinks.planId, planId), isNull(shareLinks.revokedAtMs)),
-    )
-    .returning({ id: shareLinks.id })
-    .all()
-  return revoked.length > 0
+  return planLinks.revoke(db, planId, linkId, nowMs)
 }
 
 /** The live link a token opens, or undefined (unknown, revoked and expired look the same). */
@@ -126,9 +47,5 @@ export function findLiveShareLink(
   token: string,
   nowMs: number,
 ): ShareLinkRow | undefined {
-  return db
-    .select()
-    .from(shareLinks)
-    .where(and(eq(shareLinks.tokenHash, hashLinkToken(token)), isLive(nowMs)))
-    .get()
+  return planLinks.findLive(db, token, nowMs)
 }

@@ -20,7 +20,7 @@ import { teams, users } from './schema'
 // cannot vanish silently; the API refuses (editors) or detaches it explicitly (admins).
 
 /** Columns every team-owned, versioned item has; a function so each table gets its own copies. */
-function ownedItemColumns() {
+export function ownedItemColumns() {
   return {
     id: integer('id').primaryKey({ autoIncrement: true }),
     teamId: integer('team_id')

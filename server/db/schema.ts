@@ -127,3 +127,4 @@ export const teamMailSends = sqliteTable(
 )
 
 export * from './schema-resources'
+export * from './schema-events'

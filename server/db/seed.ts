@@ -4,6 +4,7 @@ import type { DatabaseHandle } from './client'
 import type { Queryable } from './queryable'
 import { memberships, teams, users } from './schema'
 import { seedDemoPlans } from './seed-plans'
+import { seedDemoEvents } from './seed-events'
 import { seedDemoResources } from './seed-resources'
 import type { TeamRole } from '../../shared/schemas/teams'
 
@@ -53,7 +54,7 @@ export interface DemoAccounts {
  * Steps must be synchronous (better-sqlite3 transactions commit at the first await).
  */
 export type DemoSeedStep = (tx: Queryable, demo: DemoAccounts) => void
-export const demoSeedSteps: DemoSeedStep[] = [seedDemoResources, seedDemoPlans]
+export const demoSeedSteps: DemoSeedStep[] = [seedDemoResources, seedDemoPlans, seedDemoEvents]
 
 export interface DemoSignIn {
   email: string

@@ -64,7 +64,10 @@ interface HttpLibraryError {
 function fromHttpLibrary(error: HttpLibraryError): ApiError | undefined {
   switch (error.type) {
     case 'entity.parse.failed':
-      return new ApiError(400, 'malformed-json', 'The request body is not valid JSON.')
+      // The error shape promises an issues list on every 400: the body as a whole is at fault.
+      return new ApiError(400, 'malformed-json', 'The request body is not valid JSON.', [
+        { path: '', message: 'The request body is not valid JSON' },
+      ])
     case 'entity.too.large':
       return new ApiError(413, 'too-large', 'The request body is larger than this route accepts.')
     case 'encoding.unsupported':

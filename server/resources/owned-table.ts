@@ -1,6 +1,7 @@
 import { inArray } from 'drizzle-orm'
 import { users } from '../db/schema'
 import { accessories, amplifiers, packs, plans, rigs, speakers } from '../db/schema-resources'
+import type { events } from '../db/schema-events'
 import type { Queryable } from '../db/queryable'
 import type { PersonRef, SavedItemMeta } from '../../shared/schemas/resources'
 
@@ -12,6 +13,7 @@ export type OwnedTable =
   | typeof accessories
   | typeof rigs
   | typeof plans
+  | typeof events
 
 /** The columns all owned tables share, as read from any of them. */
 export interface OwnedRow {

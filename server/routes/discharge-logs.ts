@@ -4,6 +4,7 @@ import { requireTeamRole, signedInUser, teamMembership } from '../auth/require'
 import type { Queryable } from '../db/queryable'
 import { users } from '../db/schema'
 import { dischargeLogs, packs } from '../db/schema-resources'
+import { calibrationOf } from '../discharge/calibration'
 import { parseLogOffThread } from '../discharge/parse-pool'
 import { storedAnalysis } from '../discharge/stored-analysis'
 import { receiveLogFile } from '../discharge/upload'
@@ -82,10 +83,14 @@ function noteFor(figures: DischargeFigures): string | null {
   return `The log ends at ${volts(figures.endVoltageV)}, above the pack's cutoff of ${volts(figures.cutoffV)}: the pack was not run down to its cutoff, so the figures are a lower bound and its health figure cannot be accepted.`
 }
 
-function summaryOf(row: { log: LogRow; uploaderName: string | null }): DischargeLogSummary {
+function summaryOf(
+  row: { log: LogRow; uploaderName: string | null },
+  pack: PackRow,
+): DischargeLogSummary {
   const { log } = row
   return {
     ...log.analysis,
+    ...calibrationOf(log.analysis, pack.spec),
     id: log.id,
     packId: log.packId,
     fileName: log.fileName,
@@ -99,8 +104,11 @@ function summaryOf(row: { log: LogRow; uploaderName: string | null }): Discharge
   }
 }
 
-function detailOf(row: { log: LogRow; uploaderName: string | null }): DischargeLogDetail {
-  return { ...summaryOf(row), points: row.log.points }
+function detailOf(
+  row: { log: LogRow; uploaderName: string | null },
+  pack: PackRow,
+): DischargeLogDetail {
+  return { ...summaryOf(row, pack), points: row.log.points }
 }
 
 /** The client's file name, without folders or control characters, at most 200 characters. */
@@ -172,31 +180,33 @@ export function dischargeLogsRouter(context: ResourceContext): Router {
           })
           .returning({ id: dischargeLogs.id })
           .get()
-        return requireLog(tx, teamId, packId, id)
+        return detailOf(requireLog(tx, teamId, packId, id), pack)
       })
       securityEvent(req, 'discharge-log-uploaded', {
         teamId,
         packId,
-        logId: created.log.id,
+        logId: created.id,
         bytes: file.size,
       })
-      res.status(201).json(detailOf(created))
+      res.status(201).json(created)
     },
   )
 
   router.get('/', requireTeamRole('viewer'), (req, res) => {
     const teamId = teamIdOf(req)
     const packId = packIdOf(req)
-    requirePack(db, teamId, packId)
-    const items = logsOfPack(db, teamId, packId).all().map(summaryOf)
+    const pack = requirePack(db, teamId, packId)
+    const items = logsOfPack(db, teamId, packId)
+      .all()
+      .map((row) => summaryOf(row, pack))
     res.json({ items, total: items.length })
   })
 
   router.get('/:logId', requireTeamRole('viewer'), (req, res) => {
     const teamId = teamIdOf(req)
     const packId = packIdOf(req)
-    requirePack(db, teamId, packId)
-    res.json(detailOf(requireLog(db, teamId, packId, logIdOf(req))))
+    const pack = requirePack(db, teamId, packId)
+    res.json(detailOf(requireLog(db, teamId, packId, logIdOf(req)), pack))
   })
 
   router.delete('/:logId', requireTeamRole('editor'), (req, res) => {
@@ -220,7 +230,8 @@ export function dischargeLogsRouter(context: ResourceContext): Router {
     const userId = signedInUser(req).user.id
     const answer = db.transaction((tx) => {
       const pack = requirePack(tx, teamId, packId)
-      const { log } = requireLog(tx, teamId, packId, logId)
+      const found = requireLog(tx, teamId, packId, logId)
+      const { log } = found
       if (body.version !== undefined && body.version !== pack.version) {
         throw new ApiError(
           409,
@@ -231,7 +242,15 @@ export function dischargeLogsRouter(context: ResourceContext): Router {
       if (!log.analysis.reachedCutoff) {
         throw new ApiError(400, 'log-incomplete', noteFor(log.analysis) ?? logNotFound)
       }
-      const healthPct = roundHealthPct(log.analysis.healthPct)
+      const measured = summaryOf(found, pack)
+      if (measured.calibration === null) {
+        throw new ApiError(
+          400,
+          'log-not-comparable',
+          `A new pack of this spec would not deliver any charge at the log's ${measured.averageCurrentA.toFixed(2)} A down to ${volts(measured.cutoffV)}, so the log cannot be turned into a health figure. Check the pack's cells in series, cutoff per cell and cell resistance. Nothing was written.`,
+        )
+      }
+      const healthPct = roundHealthPct(measured.healthPct)
       const checked = packSchema.safeParse({ ...pack.spec, healthPct })
       if (!checked.success) {
         const issue = checked.error.issues[0]
@@ -258,7 +277,7 @@ export function dischargeLogsRouter(context: ResourceContext): Router {
       const updatedRigs = carryPackHealthToRigs(tx, teamId, packId, healthPct, { nowMs, userId })
       return {
         pack: packItemOf(tx, requirePack(tx, teamId, packId)),
-        log: detailOf(requireLog(tx, teamId, packId, logId)),
+        log: detailOf(requireLog(tx, teamId, packId, logId), requirePack(tx, teamId, packId)),
         updatedRigs,
       }
     })

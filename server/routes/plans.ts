@@ -10,6 +10,7 @@ import type {
   WriteScope,
 } from '../resources/resource-definition'
 import { teamResourceRouter } from '../resources/team-resource-router'
+import { eventsUsingPlan } from '../events/event-plans'
 import { planEstimateRequest, type PlanRunFields } from '../../shared/plans/request'
 import { estimateRequestSchema, type EstimateRequest } from '../../shared/schemas/estimate'
 import {
@@ -108,6 +109,17 @@ export const planDefinition: ResourceDefinition<typeof plans, PlanBody, PlanItem
   },
   afterWrite: ({ tx, teamId }, planId, body) => {
     writeSummary(tx, planId, planRequest(tx, teamId, body), body.startTime)
+  },
+  // A plan in an event is refused rather than dropped: the event's answer would change unseen.
+  beforeDelete: ({ tx }, row) => {
+    const using = eventsUsingPlan(tx, row.id)
+    if (using.length === 0) return undefined
+    const names = using.map((event) => `"${event.name}"`).join(', ')
+    throw new ApiError(
+      409,
+      'plan-in-event',
+      `This plan is part of ${using.length === 1 ? 'the event' : 'the events'} ${names}. Take it out of ${using.length === 1 ? 'that event' : 'those events'} first, then delete it.`,
+    )
   },
   bodyOf: (_tx, row: PlanRow) => ({
     name: row.name,

@@ -10,6 +10,8 @@ import { speakersRouter } from './speakers'
 import { cardEmailsRouter } from './card-emails'
 import { planCardRouter } from './plan-card'
 import { shareLinksRouter } from './share-links'
+import { eventShareLinksRouter } from './event-share-links'
+import { eventsRouter } from './events'
 
 /** The team's parts library and saved rigs, mounted at `/api/v1/teams/:teamId`. */
 export function teamResourcesRouter(context: AccountsContext): Router {
@@ -24,5 +26,7 @@ export function teamResourcesRouter(context: AccountsContext): Router {
   router.use('/plans/:planId/card-emails', cardEmailsRouter(context))
   router.use('/plans/:planId/card', planCardRouter(context))
   router.use('/plans', plansRouter(context))
+  router.use('/events/:eventId/share-links', eventShareLinksRouter(context))
+  router.use('/events', eventsRouter(context))
   return router
 }

@@ -35,11 +35,16 @@ export interface DischargeAnalysis {
 const secondsPerHour = 3600
 // The timeline kept with a log; enough for a chart, small enough to store as JSON.
 export const maxStoredPoints = 500
-// A load step counts when the current jumps by at least this much between neighbouring samples
-// that are close in time (ΔV/ΔI over a longer gap would mix in the discharge itself).
+// A load step counts when the current jumps by at least this much between neighbouring samples.
 const minimumStepA = 0.1
 const minimumStepFraction = 0.1
-const maximumStepGapS = 10
+// Loggers write every 1–60 s (common practice); across a longer gap the discharge itself would
+// swamp the step. The voltage on each side is carried to the moment of the step along the trend
+// of its own plateau, so the drift of the discharge between two samples does not count as I·R.
+const maximumStepGapS = 120
+// Samples of a plateau used for its trend: the ones nearest the step, within this time.
+const plateauSamples = 5
+const plateauWindowS = 300
 // Plausible bounds for one pack's internal resistance; outside them a "step" is noise.
 const maximumResistanceOhm = 10
 
@@ -106,7 +111,48 @@ export function analyseDischarge(
   }
 }
 
-/** R = −ΔV/ΔI across each clean load step (Thevenin model of the pack); the median resists outliers. */
+/** Straight-line fit V = a + b·t by least squares; one sample gives a flat line. */
+function lineThrough(samples: readonly DischargeSample[]): (timeS: number) => number {
+  const n = samples.length
+  const meanT = samples.reduce((sum, sample) => sum + sample.timeS, 0) / n
+  const meanV = samples.reduce((sum, sample) => sum + sample.voltageV, 0) / n
+  let covariance = 0
+  let variance = 0
+  for (const sample of samples) {
+    covariance += (sample.timeS - meanT) * (sample.voltageV - meanV)
+    variance += (sample.timeS - meanT) ** 2
+  }
+  const slope = variance > 0 ? covariance / variance : 0
+  return (timeS) => meanV + slope * (timeS - meanT)
+}
+
+/** The samples on one side of a step that stay at that side's current, nearest first. */
+function plateau(
+  samples: readonly DischargeSample[],
+  from: number,
+  direction: 1 | -1,
+  thresholdA: number,
+): DischargeSample[] {
+  const edge = samples[from]!
+  const kept: DischargeSample[] = []
+  for (
+    let index = from;
+    index >= 0 && index < samples.length && kept.length < plateauSamples;
+    index += direction
+  ) {
+    const sample = samples[index]!
+    if (Math.abs(sample.currentA - edge.currentA) >= thresholdA) break
+    if (Math.abs(sample.timeS - edge.timeS) > plateauWindowS) break
+    kept.push(sample)
+  }
+  return kept
+}
+
+/**
+ * R = −ΔV/ΔI at each step of the current (Thevenin model of the pack, V = OCV − I·R), with each
+ * side's voltage taken on its plateau's trend at the middle of the step; the median of the steps
+ * resists outliers (docs/estimate-api.md, "Discharge logs").
+ */
 function resistanceFromSteps(samples: readonly DischargeSample[]): { ohm?: number; steps: number } {
   const meanCurrentA = samples.reduce((sum, sample) => sum + sample.currentA, 0) / samples.length
   const stepThresholdA = Math.max(minimumStepA, minimumStepFraction * meanCurrentA)
@@ -116,7 +162,10 @@ function resistanceFromSteps(samples: readonly DischargeSample[]): { ohm?: numbe
     const after = samples[index]!
     const deltaA = after.currentA - before.currentA
     if (Math.abs(deltaA) < stepThresholdA || after.timeS - before.timeS > maximumStepGapS) continue
-    const ohm = -(after.voltageV - before.voltageV) / deltaA
+    const stepTimeS = (before.timeS + after.timeS) / 2
+    const beforeV = lineThrough(plateau(samples, index - 1, -1, stepThresholdA))(stepTimeS)
+    const afterV = lineThrough(plateau(samples, index, 1, stepThresholdA))(stepTimeS)
+    const ohm = -(afterV - beforeV) / deltaA
     if (ohm > 0 && ohm < maximumResistanceOhm) estimates.push(ohm)
   }
   if (estimates.length === 0) return { steps: 0 }

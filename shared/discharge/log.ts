@@ -13,8 +13,27 @@ export type DischargeFigures = Omit<DischargeAnalysis, 'points'> & {
   sampleCount: number
 }
 
+/** How the log's health was measured: against the model of a new pack in the same run. */
+export interface DischargeCalibration {
+  /** What the model of a new pack (health 100 %) delivers at the log's current, to its cutoff. */
+  newPackAh: number
+  /** The model's charge with the measured health applied (the log's own Ah, to within 3 %). */
+  calibratedAh: number
+  currentA: number
+  temperatureC: number
+}
+
 /** One log in a pack's list. */
 export interface DischargeLogSummary extends DischargeFigures {
+  /**
+   * Health as the model uses it: delivered Ah ÷ what a new pack of this spec delivers at the log's
+   * current and temperature. Falls back to `labelHealthPct` when `calibration` is null.
+   */
+  healthPct: number
+  /** Delivered Ah ÷ the label's rated Ah (includes the rate loss of the run). */
+  labelHealthPct: number
+  /** Null when a new pack of this spec would deliver nothing at the log's current. */
+  calibration: DischargeCalibration | null
   id: number
   packId: number
   fileName: string

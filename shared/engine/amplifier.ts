@@ -6,8 +6,12 @@ export const DEFAULT_CLASS_D_EFFICIENCY = 0.88 // engine.md §4 default
 // Boylestad & Nashelsky, Electronic Devices and Circuit Theory, ch. 12: series-fed class A
 // reaches at most 25 % at full output (50 % transformer- or push-pull-fed: set it if so)
 export const DEFAULT_CLASS_A_EFFICIENCY = 0.25
-export const DEFAULT_IDLE_CURRENT_A = 0.05 // engine.md §4 default
-export const DEFAULT_RATED_THD_PCT = 1 // ours: take the rating as the clean (1 % THD) figure
+export const DEFAULT_IDLE_CURRENT_A = 0.05 // from memory: small class D boards idle at 20–80 mA
+// from memory: class AB power chips (bridged pairs of the common 20–50 W parts) quiesce at
+// 0.1–0.25 A; the middle of that range
+export const DEFAULT_CLASS_AB_IDLE_CURRENT_A = 0.15
+// common practice: a board's headline power is usually its 10 % THD figure (clipping hard)
+export const DEFAULT_RATED_THD_PCT = 10
 // from memory: a 10 % THD rating is roughly 1 dB above the clean 1 % figure (engine.md §4)
 const THD_10_PCT_EXCESS_DB = 1
 
@@ -96,6 +100,8 @@ export interface AmplifierModel {
   /** Whole amplifier, class A only (it draws this whatever it plays). */
   biasCurrentA: number
   lockoutV: number | null
+  /** Bulk supply capacitance on the board (0: none taken). */
+  bulkCapacitanceF: number
 }
 
 /** Supply current that does not depend on the supply voltage (constant-current part). */

@@ -8,6 +8,11 @@ export interface ChemistryData {
   nominalCellV: number
   /** Open-circuit voltage of a cell at 100 % state of charge (the top OCV row). */
   fullCellV: number
+  /**
+   * A cell straight off the charger, before it rests: the highest voltage any part of the rig can
+   * see, so every maximum-voltage check uses it.
+   */
+  chargedCellV: number
   /** Default cutoff per cell under load. */
   cutoffCellV: number
   /** [state of charge %, open-circuit cell voltage V], resting cell. */
@@ -17,7 +22,13 @@ export interface ChemistryData {
    * lower resistance, so the default resistance of a cell is this over its capacity.
    */
   resistanceOhmAh: number
+  /** Peukert exponent by default (1: none; lithium uses rateLossPerC instead). */
   peukertExponent: number
+  /**
+   * Lithium: charge lost beyond I·R per C of discharge rate above the rated (0.2 C) current, as a
+   * fraction; 0 where Peukert's law carries the rate effect.
+   */
+  rateLossPerC: number
   /** Discharge time at which the capacity is rated (the Peukert reference current is C / H). */
   ratedHours: number
   /** [°C, capacity factor], [°C, resistance factor], both 1 at 25 °C. */
@@ -31,6 +42,7 @@ export const CHEMISTRY_DATA: Record<Chemistry, ChemistryData> = {
     label: 'Li-ion (NMC/NCA)',
     nominalCellV: 3.6, // common practice: "18 V" tool packs are 5 × 3.6 V
     fullCellV: 4.2, // common practice: NMC/NCA charge end voltage
+    chargedCellV: 4.2, // common practice: NMC/NCA chargers stop at 4.20 V per cell
     cutoffCellV: 3.0, // common practice: tool packs and BMS boards cut at 2.8–3.0 V per cell
     // from memory: resting OCV of NMC cells at 25 °C; makers' curves differ by a few tens of mV
     ocvRows: [
@@ -48,7 +60,13 @@ export const CHEMISTRY_DATA: Record<Chemistry, ChemistryData> = {
       [100, 4.2],
     ],
     resistanceOhmAh: 0.075, // from memory: a 2.5 Ah 18650 power cell measures about 30 mΩ DC
-    peukertExponent: 1.05, // engine.md §1: li-ion k ≈ 1.05
+    // No Peukert on top of I·R for lithium: the I·R sag is modelled, and beyond it makers' curves
+    // lose little (rateLossPerC below).
+    peukertExponent: 1,
+    // from memory: makers' discharge curves of power 18650 cells (Samsung SDI INR18650-25R,
+    // Sony/Murata US18650VTC5 datasheets) give within a few % of the 0.2 C capacity at 1–8 C;
+    // beyond the I·R sag the model already holds, about 1–3 % at 1 C, hence 2 % per C, capped
+    rateLossPerC: 0.02,
     ratedHours: 5, // IEC 61960: capacity rated at 0.2 C
     // from memory: makers' curves for NMC cells, about 85 % at 0 °C and 60 % at −20 °C
     capacityFactorRows: [
@@ -76,6 +94,7 @@ export const CHEMISTRY_DATA: Record<Chemistry, ChemistryData> = {
     label: 'LiFePO4',
     nominalCellV: 3.2, // common practice: "12.8 V" LiFePO4 packs are 4 × 3.2 V
     fullCellV: 3.6, // from memory: just off the charger (3.65 V charge end); it rests near 3.4 V
+    chargedCellV: 3.65, // common practice: LiFePO4 chargers stop at 3.65 V per cell
     cutoffCellV: 2.5, // common practice: LiFePO4 BMS undervoltage cut at 2.5 V per cell
     // from memory: the flat LiFePO4 plateau at 3.25–3.35 V, steep at both ends
     ocvRows: [
@@ -94,7 +113,10 @@ export const CHEMISTRY_DATA: Record<Chemistry, ChemistryData> = {
       [100, 3.6],
     ],
     resistanceOhmAh: 0.05, // from memory: a 3.3 Ah 26650 cell about 15 mΩ, a 100 Ah prismatic 0.5 mΩ
-    peukertExponent: 1.03, // from memory: LiFePO4 capacity barely depends on rate
+    peukertExponent: 1,
+    // from memory: LiFePO4 makers' curves (A123 ANR26650M1 datasheet) nearly overlap from 1 C to
+    // 10 C once the I·R sag is taken out: 1 % per C, capped
+    rateLossPerC: 0.01,
     ratedHours: 5, // IEC 61960: capacity rated at 0.2 C
     // from memory: makers' curves, LiFePO4 loses more than NMC in the cold
     capacityFactorRows: [
@@ -121,6 +143,7 @@ export const CHEMISTRY_DATA: Record<Chemistry, ChemistryData> = {
     label: 'Lead-acid (AGM/gel)',
     nominalCellV: 2.0, // common practice: a "12 V" battery is 6 × 2 V cells
     fullCellV: 12.7 / 6, // from memory: 12.7 V resting for a full 12 V AGM battery
+    chargedCellV: 2.45, // common practice: AGM absorption charge at 2.45 V per cell (14.7 V)
     cutoffCellV: 1.75, // common practice: 10.5 V under load for a 12 V battery
     // from memory: the common resting-voltage chart for 12 V AGM, 12.7 / 12.4 / 12.2 / 12.0 / 11.8 V
     // at 100 / 75 / 50 / 25 / 0 %, here per cell
@@ -133,6 +156,7 @@ export const CHEMISTRY_DATA: Record<Chemistry, ChemistryData> = {
     ],
     resistanceOhmAh: 0.04, // from memory: a 12 V 7 Ah AGM measures about 25–35 mΩ
     peukertExponent: 1.2, // engine.md §1: lead-acid k ≈ 1.1–1.3
+    rateLossPerC: 0, // Peukert's law carries lead-acid's rate effect
     ratedHours: 20, // common practice: the 20-hour rate (C20) on lead-acid labels
     // from memory: lead-acid gives about 80 % at 0 °C and 55 % at −20 °C
     capacityFactorRows: [
@@ -159,6 +183,7 @@ export const CHEMISTRY_DATA: Record<Chemistry, ChemistryData> = {
     label: 'NiMH',
     nominalCellV: 1.2, // common practice
     fullCellV: 1.4, // from memory: rested just after a full charge
+    chargedCellV: 1.45, // common practice: NiMH at the end of a charge, about 1.45 V per cell
     cutoffCellV: 1.0, // common practice: 1.0 V per cell end of discharge
     // from memory: NiMH plateau near 1.2–1.3 V
     ocvRows: [
@@ -174,6 +199,7 @@ export const CHEMISTRY_DATA: Record<Chemistry, ChemistryData> = {
     ],
     resistanceOhmAh: 0.06, // from memory: a 2 Ah AA cell measures about 30 mΩ
     peukertExponent: 1.1, // from memory
+    rateLossPerC: 0, // Peukert's law carries NiMH's rate effect
     ratedHours: 5, // IEC 61951-2: capacity rated at 0.2 It
     // from memory
     capacityFactorRows: [

@@ -3,18 +3,31 @@ import type {
   AirlineClass,
   ConverterVerdict,
   EstimateRequest,
+  EstimateResult,
   PackSpec,
   StopReason,
 } from '../schemas/estimate'
+import type { CompareRequest, CompareRow } from '../schemas/compare'
+import { CHEMISTRY_DATA } from './chemistry'
 import { prepareRig, runPrepared, summarise } from './estimate'
+import { resolveRequest } from './resolve'
 import type { RunOutcome } from './run'
 
 /** Most packs the "packs needed" search will try (the schema's limit on packs on hand). */
 export const MAX_PACKS_SEARCHED = 50
 
+/** Why a pack cannot go in the rig, in the warnings' own shape. */
+export interface FitProblem {
+  code: string
+  message: string
+}
+
 export interface PackComparisonRow {
   index: number
   label: string | null
+  /** False when the pack would harm a part, starve one, or cannot carry the rig (see fitProblems). */
+  fits: boolean
+  problems: FitProblem[]
   runtimeHours: number
   stopReason: StopReason
   /** With a schedule: whether the packs on hand last it; null without a schedule. */
@@ -24,6 +37,8 @@ export interface PackComparisonRow {
   /** Hours of music one full charge gives (extrapolated from the charge used if the plan ended first). */
   musicHoursPerCharge: number
   nominalWh: number
+  /** Energy out of the packs over the run (all packs used). */
+  deliveredWh: number
   massKg: number | null
   whPerKg: number | null
   price: number | null
@@ -42,6 +57,24 @@ export interface PackComparisonRow {
   peakOverRating: boolean | null
   dropoutRisk: boolean
   warningCodes: string[]
+}
+
+/**
+ * Whether a pack's voltage window (full off the charger down to its cutoff) sits inside what the
+ * rig's amplifier and its directly fed parts take: the candidates a comparison starts from. A
+ * quick screen on the figures given; the full answer is the row's `fits`.
+ */
+export function packWindowSuits(request: EstimateRequest, pack: PackSpec): boolean {
+  const chemistry = CHEMISTRY_DATA[pack.chemistry]
+  // Common practice: a pack is full at the chemistry's charge voltage per cell.
+  const fullV = pack.seriesCells * chemistry.fullCellV
+  const cutoffV = pack.seriesCells * (pack.cutoffCellV ?? chemistry.cutoffCellV)
+  const { amplifier } = resolveRequest(request).resolved
+  if (amplifier.supplyMaxV !== null && fullV > amplifier.supplyMaxV) return false
+  if (amplifier.lockoutV !== null && cutoffV < amplifier.lockoutV) return false
+  return (request.accessories ?? []).every(
+    (part) => part.feed !== 'direct' || (fullV <= part.inputMaxV && cutoffV >= part.inputMinV),
+  )
 }
 
 /** Packs needed to last the schedule: null without a schedule or when 50 would not do. */
@@ -71,6 +104,72 @@ function estimateWithPacksNeeded(request: EstimateRequest) {
   return { result: summarise(prepared, ownRun), packsNeeded: packsNeeded(longRun) }
 }
 
+// ours: a rig that stops within its first minute of music on a fresh pack cannot run on it at all.
+const STOPS_AT_ONCE_MINUTES = 1
+
+// Dangers that are not about the pack and the rig's parts: a day too long for the packs on hand
+// is the `lasts` column, and a level over a hearing limit is the rig's level, fixed by playing
+// quieter on any pack. Every other danger, including ones added later, makes a pack not fit.
+const NOT_ABOUT_FIT = new Set(['schedule-short', 'hearing-over-venue-limit'])
+
+const stopsAtOnceText: Partial<Record<StopReason, string>> = {
+  'amp-lockout':
+    "the amplifier's lock-out is above what this pack gives under the rig's load: use a pack with more cells in series",
+  'pack-cutoff':
+    "the pack falls to its cutoff under the rig's load at once: use a pack with more cells in series or in parallel",
+}
+
+/**
+ * Why a pack does not fit the rig (docs/estimate-api.md, "Comparing packs"); empty when it fits.
+ * A pack does not fit when the estimate with it carries a danger about the rig's parts (a part
+ * over its maximum, a current over a rating, music cutting out on peaks, …), when a part's feed
+ * does not suit the pack's window (over its maximum or under its minimum at some point of the
+ * run; a direct feed fits only a `direct-ok` verdict, so `over-max` on a direct feed is one
+ * case, while a part behind a converter that suits the window never sees the pack), when the
+ * pack cannot deliver the rig's power, or when the rig stops within its first minute of music.
+ * Each problem is the estimate's own warning where there is one.
+ */
+export function fitProblems(result: EstimateResult): FitProblem[] {
+  const problems: FitProblem[] = []
+  const add = (problem: FitProblem) => {
+    if (!problems.some((kept) => kept.code === problem.code && kept.message === problem.message))
+      problems.push({ code: problem.code, message: problem.message })
+  }
+  for (const warning of result.warnings) {
+    if (warning.severity === 'danger' && !NOT_ABOUT_FIT.has(warning.code)) add(warning)
+  }
+  for (const converter of result.converters) {
+    if (converter.fits) continue
+    const named = result.warnings.find((warning) =>
+      warning.message.includes(`"${converter.label}"`),
+    )
+    add(
+      named ?? {
+        code: converter.feed === 'direct' ? 'accessory-out-of-range' : 'converter-mismatch',
+        message: `"${converter.label}": ${converter.advice}`,
+      },
+    )
+  }
+  if (
+    result.stopReason === 'cannot-deliver' &&
+    !problems.some((p) => p.code === 'cannot-deliver')
+  ) {
+    add({
+      code: 'cannot-deliver',
+      message:
+        "This pack cannot deliver the rig's power: its voltage would collapse under the load. Use a pack with more cells in parallel, or play quieter.",
+    })
+  }
+  const stopsAtOnce = stopsAtOnceText[result.stopReason]
+  if (stopsAtOnce && result.musicHours * 60 < STOPS_AT_ONCE_MINUTES) {
+    add({
+      code: 'stops-at-once',
+      message: `The rig stops within its first minute of music on this pack: ${stopsAtOnce}.`,
+    })
+  }
+  return problems
+}
+
 export function comparePacks(
   request: EstimateRequest,
   packs: readonly PackSpec[],
@@ -92,15 +191,19 @@ export function comparePacks(
     const massKg = pack.massKg ?? null
     const price = pack.price ?? null
     const maxDischargeA = pack.maxDischargeA ?? null
+    const problems = fitProblems(result)
     return {
       index,
       label: pack.label ?? null,
+      fits: problems.length === 0,
+      problems,
       runtimeHours: result.runtimeHours,
       stopReason: result.stopReason,
       lasts,
       packsNeeded,
       musicHoursPerCharge,
       nominalWh: result.pack.nominalWh,
+      deliveredWh: result.energyWh.delivered,
       massKg,
       whPerKg: massKg === null ? null : result.pack.nominalWh / massKg,
       price,
@@ -125,4 +228,22 @@ export function comparePacks(
       warningCodes: result.warnings.map((warning) => warning.code),
     }
   })
+}
+
+/** `POST /api/v1/compare` (docs/estimate-api.md): the rows of comparePacks in the contract's shape. */
+export function compareForApi(body: CompareRequest): { rows: CompareRow[] } {
+  return {
+    rows: comparePacks(body.rig, body.packs).map((row) => ({
+      fits: row.fits,
+      problems: row.problems,
+      runtimeHours: row.runtimeHours,
+      ...(row.lasts === null ? {} : { lasts: row.lasts }),
+      energyWh: { nominal: row.nominalWh, delivered: row.deliveredWh },
+      ...(row.whPerKg === null ? {} : { whPerKg: row.whPerKg }),
+      ...(row.costPerMusicHour === null ? {} : { costPerHour: row.costPerMusicHour }),
+      minimumHeadroomDb: row.headroomMinimumDb,
+      airlineClass: row.airlineClass,
+      converterNeeds: row.converterNeeds,
+    })),
+  }
 }

@@ -39,6 +39,12 @@ export interface AccessoryInputs {
   outputV: number
   efficiency: number
   idleW: number
+  /**
+   * The input range of the part the pack's voltage reaches: the accessory itself when fed direct,
+   * the converter module's own range when given, else null (a regulated module taken to accept
+   * the window). An isolated feed without its module's range takes the accessory's (resolve.ts).
+   */
+  exposedInput: { minV: number; maxV: number } | null
 }
 
 /** The pack's window over the whole discharge against the accessory's input range. */
@@ -56,6 +62,25 @@ export function converterVerdict(
   return 'direct-ok'
 }
 
+/**
+ * The verdict for the rig as wired: what the accessory needs from the pack's window, except that a
+ * part the pack reaches (a direct accessory, or a converter module with a known input range) with
+ * its maximum below the pack straight off the charger is `over-max`, whatever else is wrong.
+ */
+export function wiredVerdict(
+  accessory: AccessoryInputs,
+  windowMinV: number,
+  windowMaxV: number,
+): ConverterVerdict {
+  const exposed = accessory.exposedInput
+  if (exposed && windowMaxV > exposed.maxV) return 'over-max'
+  const needs = converterVerdict(windowMinV, windowMaxV, accessory.inputMinV, accessory.inputMaxV)
+  // A converter of unknown range between them keeps the device off the pack's voltage: what the
+  // device needs is a step-down, and no part is over its maximum.
+  if (!exposed && needs === 'over-max') return 'step-down'
+  return needs
+}
+
 /** Whether the chosen feed works over the whole window. */
 export function feedFits(
   accessory: AccessoryInputs,
@@ -63,6 +88,8 @@ export function feedFits(
   windowMinV: number,
   windowMaxV: number,
 ): boolean {
+  const exposed = accessory.exposedInput
+  if (exposed && (windowMaxV > exposed.maxV || windowMinV < exposed.minV)) return false
   switch (accessory.feed) {
     case 'direct':
       return verdict === 'direct-ok'
@@ -99,9 +126,13 @@ export function converterAdvice(
     case 'direct-ok':
       return `Connect directly: the pack stays within ${window}, inside the accessory's ${range}.${isolation}`
     case 'over-max':
-      return `Fit a step-down (buck) converter: a full pack gives ${volts(windowMaxV)}, above the accessory's maximum of ${volts(accessory.inputMaxV)}.${isolation}`
+      if (accessory.feed !== 'direct') {
+        const maxV = accessory.exposedInput ? accessory.exposedInput.maxV : accessory.inputMaxV
+        return `Use a converter rated for more input: a pack straight off the charger gives ${volts(windowMaxV)}, above the ${accessory.feed} converter's maximum input of ${volts(maxV)}.${isolation}`
+      }
+      return `Fit a step-down (buck) converter: a pack straight off the charger gives ${volts(windowMaxV)}, above the accessory's maximum of ${volts(accessory.inputMaxV)}.${isolation}`
     case 'step-down':
-      return `Fit a step-down (buck) converter: the pack (${window}) is above the accessory's ${range} the whole time.${isolation}`
+      return `Fit a step-down (buck) converter: the pack (${window}) goes above the accessory's ${range}.${isolation}`
     case 'step-up':
       return `Fit a step-up (boost) converter: the pack falls to ${volts(windowMinV)}, below the accessory's minimum of ${volts(accessory.inputMinV)}.${isolation}`
     case 'buck-boost':
@@ -118,7 +149,11 @@ export interface AccessoryLoad {
   devicePowerW: number
 }
 
-/** Pack draw = P/η + converter idle (engine.md §6); a linear regulator passes the device current. */
+/**
+ * Pack draw of an accessory. A converter's quoted efficiency already counts its own losses at that
+ * load, idle losses included, so the idle draw is their floor, not an addition (which counted it
+ * twice): loss = max(P·(1/η − 1), idle). A linear regulator passes the device current.
+ */
 export function accessoryLoad(accessory: AccessoryInputs): AccessoryLoad {
   if (accessory.feed === 'linear') {
     return {
@@ -128,7 +163,9 @@ export function accessoryLoad(accessory: AccessoryInputs): AccessoryLoad {
     }
   }
   return {
-    packPowerW: accessory.powerW / accessory.efficiency + accessory.idleW,
+    packPowerW:
+      accessory.powerW +
+      Math.max(accessory.powerW / accessory.efficiency - accessory.powerW, accessory.idleW),
     packCurrentA: 0,
     devicePowerW: accessory.powerW,
   }

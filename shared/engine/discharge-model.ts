@@ -88,3 +88,56 @@ export function modelConstantCurrentDischarge(
   }
   return { points, deliveredAh: (currentA * emptyS) / 3600, stopReason: 'pack-empty' }
 }
+
+export interface LogCalibration {
+  /** Delivered Ah over what a new pack (health 100 %) of this spec delivers in the same run. */
+  healthPct: number
+  /** What the model of a new pack delivers at the log's current and temperature, to its cutoff. */
+  newPackAh: number
+  /** What the model delivers with `healthPct` applied: the log's own Ah, within the solve's tolerance. */
+  calibratedAh: number
+  currentA: number
+  temperatureC: number
+}
+
+// A new pack's figure starts the search; a few secant steps absorb anything in the model that is
+// not proportional to health (a resistance that rises as health falls, a cutoff reached early).
+const calibrationSteps = 8
+const calibrationToleranceAh = 1e-6
+
+/**
+ * State of health from a measured discharge (docs/estimate-api.md, "Discharge logs"): the
+ * health at which the model of this pack, run at the log's average current and temperature down
+ * to the log's cutoff, delivers what the log delivered. Measuring against the model of a new pack
+ * (not the label's Ah) keeps the rate loss (I·R sag and Peukert) from being counted twice once the
+ * figure is applied. Undefined when a new pack of this spec delivers nothing at that current.
+ */
+export function calibrateFromLog(
+  spec: PackSpec,
+  log: { deliveredAh: number; averageCurrentA: number; cutoffV: number },
+  temperatureC = DEFAULT_TEMPERATURE_C,
+): LogCalibration | undefined {
+  const currentA = log.averageCurrentA
+  if (!(currentA > 0) || !(log.deliveredAh > 0)) return undefined
+  // The log was read against this cutoff; the model stops at the same voltage.
+  const cutoffCellV = log.cutoffV / spec.seriesCells
+  const deliveredAt = (healthPct: number) =>
+    modelConstantCurrentDischarge({ ...spec, cutoffCellV, healthPct }, currentA, temperatureC)
+      .deliveredAh
+  const newPackAh = deliveredAt(100)
+  if (!(newPackAh > 0)) return undefined
+
+  let healthPct = (100 * log.deliveredAh) / newPackAh
+  let modelAh = deliveredAt(healthPct)
+  let previous = { healthPct: 100, modelAh: newPackAh }
+  for (let step = 0; step < calibrationSteps; step += 1) {
+    const errorAh = modelAh - log.deliveredAh
+    if (Math.abs(errorAh) < calibrationToleranceAh) break
+    const slope = (modelAh - previous.modelAh) / (healthPct - previous.healthPct)
+    if (!(Math.abs(slope) > 0) || !Number.isFinite(slope)) break
+    previous = { healthPct, modelAh }
+    healthPct = Math.max(healthPct - errorAh / slope, 1e-3)
+    modelAh = deliveredAt(healthPct)
+  }
+  return { healthPct, newPackAh, calibratedAh: modelAh, currentA, temperatureC }
+}

@@ -8,18 +8,19 @@ import {
   outputResistanceOhm,
   ratingExcessDb,
 } from './amplifier'
-import { capacityTemperatureFactor } from './chemistry'
+import { CHEMISTRY_DATA, capacityTemperatureFactor } from './chemistry'
 import {
   accessoryLoad,
   converterAdvice,
-  converterVerdict,
   feedFits,
   linearRegulatorHeatW,
+  wiredVerdict,
 } from './converters'
 import { airlineClass, nominalWh } from './energy'
 import { leadResistanceOhm } from './leads'
+import type { SupplyFloor } from './dropout'
 import type { PackModel } from './pack'
-import { buildPack, packOpenCircuitV } from './pack'
+import { buildPack, packOpenCircuitV, socAtOpenCircuitV } from './pack'
 import {
   averagePowerW,
   averageToClipRatioAtClipping,
@@ -29,16 +30,12 @@ import {
 import type { ResolvedRequest, ResolvedSegment } from './resolve'
 import { resolveRequest } from './resolve'
 import type { RigLoads, RunOutcome, RunSegment } from './run'
-import {
-  OPEN_RUN_LIMIT_MINUTES,
-  emptyOperatingPoint,
-  peakDemand,
-  runRig,
-  solveOperatingPoint,
-} from './run'
+import { OPEN_RUN_LIMIT_MINUTES, emptyOperatingPoint, runRig, solveOperatingPoint } from './run'
+import { peakEnvelope } from './peaks'
 import { equivalentLevelDb, nioshPermittedMinutes, soundLevelDb, WHO_VENUE_LAEQ_DB } from './sound'
 import { driversPerChannel, loadOhm } from './speakers'
 import { dropoutOnset } from './dropout'
+import type { DropoutOnset } from './dropout'
 import { ENGINE_VERSION } from './version'
 import { collectWarnings } from './warnings'
 
@@ -84,6 +81,7 @@ export function prepareRig(request: EstimateRequest): PreparedRig {
         ? amp.channels * classABiasCurrentA(amp.ratedPowerW, amp.ratedSupplyV, amp.efficiency)
         : 0,
     lockoutV: amp.lockoutV,
+    bulkCapacitanceF: amp.bulkCapacitanceF,
   }
   const linearCurrentA: number[] = []
   const linearDeviceW: number[] = []
@@ -194,6 +192,155 @@ function settledSupplyV(prepared: PreparedRig, sourceV: number, sourceOhm: numbe
   return supplyV
 }
 
+/** The programme's loudest bass note per channel over the run: a sine burst at the peaks of the
+ *  playing segment that peaks highest, and never below its average (under 3 dB crest factor). */
+function burstPerChannelW(segments: readonly RunSegment[]): number {
+  let burstW = 0
+  for (const segment of segments) {
+    if (segment.state !== 'on' || segment.playingShare <= 0) continue
+    burstW = Math.max(burstW, segment.peakPerChannelW, segment.outputPerChannelW)
+  }
+  return burstW
+}
+
+/** The parts that mute when the supply after the lead falls below their floor. */
+function supplyFloors(resolved: ResolvedRequest, lockoutV: number | null): SupplyFloor[] {
+  // Without a lock-out the amplifier still mutes where the pack cannot deliver the peak at all.
+  const floors: SupplyFloor[] = [{ part: 'amplifier', floorV: lockoutV ?? 0 }]
+  for (const accessory of resolved.accessories) {
+    if (accessory.feed === 'direct')
+      floors.push({ part: accessory.label, floorV: accessory.inputMinV })
+  }
+  return floors
+}
+
+/**
+ * How deep the peaks are weighed. A day that ran its course stops at the charge it reached. A run
+ * that stopped on a limit of the rig (lock-out, cutoff, an empty last pack, a pack that cannot
+ * deliver) is weighed down to where the pack itself ends, its open-circuit voltage at the cutoff:
+ * the safe side, and what keeps the figures monotone (a louder level or a thinner lead that stops
+ * the run sooner never reads as easier peaks).
+ */
+function peaksDownToSoc(prepared: PreparedRig, outcome: RunOutcome): number {
+  if (outcome.stopReason === 'schedule-end' || outcome.stopReason === 'time-limit') {
+    return outcome.lowestSoc
+  }
+  return Math.min(outcome.lowestSoc, socAtOpenCircuitV(prepared.pack, prepared.pack.cutoffV))
+}
+
+/** Peak current and voltages over the whole run, and the first part to mute. */
+function peakFigures(
+  prepared: PreparedRig,
+  outcome: RunOutcome,
+  timeline: EstimateResult['timeline'],
+): {
+  peakCurrentA: number
+  minPeakTerminalV: number
+  minPeakSupplyV: number
+  dropout: DropoutOnset | null
+} {
+  const { rig, resolved } = prepared
+  const burstW = burstPerChannelW(prepared.segments)
+  const downToSoc = peaksDownToSoc(prepared, outcome)
+  const envelope = peakEnvelope(rig, burstW, downToSoc)
+  const leads = resolved.leads
+  const dropout = dropoutOnset(
+    rig,
+    burstW,
+    supplyFloors(resolved, rig.amplifier.lockoutV),
+    downToSoc,
+    timeline,
+    {
+      lead: leads
+        ? {
+            lengthM: leads.lengthM,
+            areaMm2: leads.areaMm2,
+            resistanceForAreaOhm: (areaMm2) =>
+              leadResistanceOhm({ ...leads, areaMm2 }, resolved.temperatureC),
+          }
+        : null,
+      parallelCells: resolved.pack.parallelCells,
+    },
+  )
+  return {
+    peakCurrentA: envelope.peakCurrentA,
+    minPeakTerminalV: envelope.minPeakTerminalV,
+    minPeakSupplyV: envelope.minPeakSupplyV,
+    dropout,
+  }
+}
+
+/** Each accessory against the pack's window over the whole discharge, as it is wired. */
+function converterResults(
+  resolved: ResolvedRequest,
+  windowMaxV: number,
+  windowMinV: number,
+): ConverterResult[] {
+  return resolved.accessories.map((accessory) => {
+    const verdict = wiredVerdict(accessory, windowMinV, windowMaxV)
+    const load = accessoryLoad(accessory)
+    const isLinear = accessory.feed === 'linear'
+    const linearHeatW = isLinear
+      ? linearRegulatorHeatW(windowMaxV, accessory.outputV, load.packCurrentA)
+      : 0
+    const packDrawW = isLinear ? windowMaxV * load.packCurrentA : load.packPowerW
+    return {
+      label: accessory.label,
+      verdict,
+      feed: accessory.feed,
+      fits: feedFits(accessory, verdict, windowMinV, windowMaxV),
+      advice: converterAdvice(accessory, verdict, windowMinV, windowMaxV),
+      windowMinV,
+      windowMaxV,
+      suppliedV: accessory.feed === 'direct' ? windowMaxV : accessory.outputV,
+      packDrawW,
+      lossW: packDrawW - accessory.powerW,
+      linearHeatW,
+    }
+  })
+}
+
+/** Sound at the listener from the loudest segment, and the day's exposure. */
+function soundFigures(
+  prepared: PreparedRig,
+  loudest: RunSegment | null,
+): { splDb: EstimateResult['splDb']; exposure: EstimateResult['exposure'] } {
+  const { resolved } = prepared
+  const speakers = resolved.speakers
+  if (speakers.sensitivityDb === null || !loudest) return { splDb: undefined, exposure: undefined }
+  const sensitivityDb = speakers.sensitivityDb
+  const drivers = driversPerChannel(speakers)
+  const levelAt = (channelPowerW: number) =>
+    soundLevelDb(
+      sensitivityDb,
+      channelPowerW / drivers,
+      speakers.facingListener,
+      resolved.listenerDistanceM,
+      resolved.boundaryGainDb,
+    )
+  const average = equivalentLevelDb(levelAt(loudest.outputPerChannelW), loudest.playingShare)
+  // Peaks are at least the level while playing (a programme under 3 dB crest factor).
+  const peak = levelAt(Math.max(loudest.peakPerChannelW, loudest.outputPerChannelW))
+  let dosePct: number | undefined
+  if (resolved.schedule) {
+    dosePct = 0
+    for (const segment of prepared.segments) {
+      if (segment.state !== 'on' || segment.playingShare <= 0) continue
+      const level = equivalentLevelDb(levelAt(segment.outputPerChannelW), segment.playingShare)
+      dosePct += (100 * segment.durationS) / 60 / nioshPermittedMinutes(level)
+    }
+  }
+  return {
+    splDb: { average, peak },
+    exposure: {
+      permittedMinutes: nioshPermittedMinutes(average),
+      levelDb: average,
+      ...(dosePct === undefined ? {} : { dosePct }),
+      overWhoVenueLimit: average > WHO_VENUE_LAEQ_DB,
+    },
+  }
+}
+
 const toWh = (joules: number) => joules / 3600
 const perSecond = (total: number, seconds: number) => (seconds > 0 ? total / seconds : 0)
 
@@ -220,95 +367,35 @@ export function summarise(prepared: PreparedRig, outcome: RunOutcome): EstimateR
   const cutoffLeadSupplyV = settledSupplyV(prepared, pack.cutoffV, 0) ?? pack.cutoffV / 2
   const endSupplyV = Math.max(cutoffLeadSupplyV, amplifier.lockoutV ?? 0)
   const clipAt = (supplyV: number) => amplifier.clipPowerPerV2 * supplyV * supplyV
+  const fullClipW = clipAt(fullSupplyV ?? fullOpenCircuitV / 2)
+  // The end of the discharge as the run reached it (a lead-acid run may stop on an empty pack
+  // above its cutoff voltage): the lowest supply while playing, where anything played.
+  const reachedEndSupplyV = Number.isFinite(outcome.lowestPlayingSupplyV)
+    ? Math.max(outcome.lowestPlayingSupplyV, amplifier.lockoutV ?? 0)
+    : endSupplyV
 
-  // Peaks: the loudest segment's peaks as a sine burst at the lowest state of charge reached.
-  const loudest = loudestSegment(prepared.segments)
-  const peak = peakDemand(rig, loudest ? loudest.peakPerChannelW : 0, outcome.lowestSoc)
-  const dropoutRisk =
-    !peak.delivered || (amplifier.lockoutV !== null && peak.supplyV < amplifier.lockoutV)
   const timeline = outcome.timeline ? outcome.timeline.points() : []
-  const dropout = dropoutRisk
-    ? dropoutOnset(
-        rig,
-        loudest ? loudest.peakPerChannelW : 0,
-        amplifier.lockoutV,
-        outcome.lowestSoc,
-        timeline,
-      )
-    : null
+  const peaks = peakFigures(prepared, outcome, timeline)
+  const dropoutRisk = peaks.dropout !== null
+  const dropout = peaks.dropout
 
-  // Accessories against the pack's window over the whole discharge (engine.md §6).
-  const windowMaxV = fullOpenCircuitV
-  const windowMinV = endSupplyV
-  const converters: ConverterResult[] = resolved.accessories.map((accessory) => {
-    const verdict = converterVerdict(
-      windowMinV,
-      windowMaxV,
-      accessory.inputMinV,
-      accessory.inputMaxV,
-    )
-    const load = accessoryLoad(accessory)
-    const isLinear = accessory.feed === 'linear'
-    const linearHeatW = isLinear
-      ? linearRegulatorHeatW(windowMaxV, accessory.outputV, load.packCurrentA)
-      : 0
-    const packDrawW = isLinear ? windowMaxV * load.packCurrentA : load.packPowerW
-    return {
-      label: accessory.label,
-      verdict,
-      feed: accessory.feed,
-      fits: feedFits(accessory, verdict, windowMinV, windowMaxV),
-      advice: converterAdvice(accessory, verdict, windowMinV, windowMaxV),
-      windowMinV,
-      windowMaxV,
-      suppliedV: accessory.feed === 'direct' ? windowMaxV : accessory.outputV,
-      packDrawW,
-      lossW: packDrawW - accessory.powerW,
-      linearHeatW,
-    }
-  })
+  // Accessories against the pack's window, its top straight off the charger.
+  const converters = converterResults(resolved, pack.chargedV, endSupplyV)
 
-  // Sound at the listener (engine.md §8), from the loudest segment.
-  const speakers = resolved.speakers
-  const drivers = driversPerChannel(speakers)
-  let splDb: EstimateResult['splDb']
-  let exposure: EstimateResult['exposure']
-  if (speakers.sensitivityDb !== null && loudest) {
-    const levelAt = (channelPowerW: number) =>
-      soundLevelDb(
-        speakers.sensitivityDb!,
-        channelPowerW / drivers,
-        speakers.facingListener,
-        resolved.listenerDistanceM,
-        resolved.boundaryGainDb,
-      )
-    const average = equivalentLevelDb(levelAt(loudest.outputPerChannelW), loudest.playingShare)
-    splDb = { average, peak: levelAt(loudest.peakPerChannelW) }
-    let dosePct: number | undefined
-    if (resolved.schedule) {
-      dosePct = 0
-      for (const segment of prepared.segments) {
-        if (segment.state !== 'on' || segment.playingShare <= 0) continue
-        const level = equivalentLevelDb(levelAt(segment.outputPerChannelW), segment.playingShare)
-        dosePct += (100 * segment.durationS) / 60 / nioshPermittedMinutes(level)
-      }
-    }
-    exposure = {
-      permittedMinutes: nioshPermittedMinutes(average),
-      levelDb: average,
-      ...(dosePct === undefined ? {} : { dosePct }),
-      overWhoVenueLimit: average > WHO_VENUE_LAEQ_DB,
-    }
-  }
+  const loudest = loudestSegment(prepared.segments)
+  const { splDb, exposure } = soundFigures(prepared, loudest)
 
   const nominalPackWh = nominalWh(pack.nominalV, pack.ratedCapacityAh)
-  const packClass = airlineClass(nominalPackWh)
+  const packClass = airlineClass(nominalPackWh, CHEMISTRY_DATA[pack.chemistry].isLithium)
   const averageOnCurrentA = perSecond(outcome.onChargeAs, outcome.musicS)
   const averageOnTerminalV = perSecond(outcome.onTerminalVs, outcome.musicS)
   const leadDropPct = {
     average:
       averageOnTerminalV > 0 ? (100 * averageOnCurrentA * rig.leadOhm) / averageOnTerminalV : 0,
-    peak: peak.terminalV > 0 ? (100 * peak.currentA * rig.leadOhm) / peak.terminalV : 0,
+    peak:
+      peaks.minPeakTerminalV > 0
+        ? (100 * peaks.peakCurrentA * rig.leadOhm) / peaks.minPeakTerminalV
+        : 0,
   }
   const totalMinutes = prepared.segments.reduce((sum, segment) => sum + segment.durationS, 0) / 60
   const lasts = outcome.stopReason === 'schedule-end'
@@ -332,7 +419,7 @@ export function summarise(prepared: PreparedRig, outcome: RunOutcome): EstimateR
     capacityFactor: capacityTemperatureFactor(pack.chemistry, resolved.temperatureC),
     loadOhm: amplifier.loadOhm,
     minLoadOhm: resolved.amplifier.minLoadOhm,
-    fullPackV: fullOpenCircuitV,
+    chargedPackV: pack.chargedV,
     cutoffSupplyV: cutoffLeadSupplyV,
     supplyMaxV: resolved.amplifier.supplyMaxV,
     lockoutV: amplifier.lockoutV,
@@ -340,13 +427,13 @@ export function summarise(prepared: PreparedRig, outcome: RunOutcome): EstimateR
     anyPackCannotDeliver: outcome.packRuns.some((run) => run.endReason === 'cannot-deliver'),
     lowestSocPct: outcome.lowestSoc * 100,
     maxAverageCurrentA: outcome.maxCurrentA,
-    peakCurrentA: peak.currentA,
+    peakCurrentA: peaks.peakCurrentA,
     maxDischargeA: resolved.pack.maxDischargeA,
     leadDropPct,
     leadAreaMm2: resolved.leads ? resolved.leads.areaMm2 : null,
     dropoutRisk,
     dropout,
-    minPeakSupplyV: peak.supplyV,
+    minPeakSupplyV: peaks.minPeakSupplyV,
     clipsFromMinute: outcome.clipsFromS === null ? null : outcome.clipsFromS / 60,
     converters,
     averageSplDb: splDb ? splDb.average : null,
@@ -388,12 +475,10 @@ export function summarise(prepared: PreparedRig, outcome: RunOutcome): EstimateR
       leadLoss: toWh(outcome.leadLossJ),
       packLoss: toWh(outcome.packLossJ),
     },
-    clipPowerW: {
-      full: clipAt(fullSupplyV ?? fullOpenCircuitV / 2),
-      cutoff: clipAt(endSupplyV),
-    },
-    peakCurrentA: peak.currentA,
-    minPeakTerminalV: peak.supplyV,
+    clipPowerW: { full: fullClipW, cutoff: Math.min(clipAt(reachedEndSupplyV), fullClipW) },
+    peakCurrentA: peaks.peakCurrentA,
+    minPeakTerminalV: peaks.minPeakTerminalV,
+    minPeakSupplyV: peaks.minPeakSupplyV,
     dropoutRisk,
     dropout,
     ...(splDb ? { splDb } : {}),
@@ -406,6 +491,7 @@ export function summarise(prepared: PreparedRig, outcome: RunOutcome): EstimateR
       ...(resolved.pack.label === undefined ? {} : { label: resolved.pack.label }),
       nominalV: pack.nominalV,
       fullV: pack.fullV,
+      chargedV: pack.chargedV,
       cutoffV: pack.cutoffV,
       ratedCapacityAh: pack.ratedCapacityAh,
       capacityAh: pack.capacityAh,
@@ -422,10 +508,10 @@ export function summarise(prepared: PreparedRig, outcome: RunOutcome): EstimateR
     },
     speakers: {
       loadOhm: amplifier.loadOhm,
-      driversPerChannel: drivers,
+      driversPerChannel: driversPerChannel(resolved.speakers),
       powerPerDriverW: {
-        average: loudest ? loudest.outputPerChannelW / drivers : 0,
-        peak: loudest ? loudest.peakPerChannelW / drivers : 0,
+        average: loudest ? loudest.outputPerChannelW / driversPerChannel(resolved.speakers) : 0,
+        peak: loudest ? loudest.peakPerChannelW / driversPerChannel(resolved.speakers) : 0,
       },
     },
     leads: {

@@ -1,8 +1,8 @@
 // The engine's public API.
 export { estimate, prepareRig, runPrepared, summarise } from './estimate'
 export type { EstimateOptions, PreparedRig } from './estimate'
-export { comparePacks } from './compare'
-export type { PackComparisonRow } from './compare'
+export { comparePacks, fitProblems, packWindowSuits } from './compare'
+export type { FitProblem, PackComparisonRow } from './compare'
 export { applyPatch, suggestFixes } from './suggestions'
 export type { RequestPatch, FixSuggestions } from './suggestions'
 export { ENGINE_VERSION } from './version'

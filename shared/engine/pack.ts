@@ -12,12 +12,16 @@ export interface PackInputs {
   cutoffCellV: number
   healthPct: number
   peukertExponent: number
+  /** Lithium rate loss beyond I·R per C (chemistry.ts); 0 or absent: none. */
+  rateLossPerC?: number
 }
 
 export interface PackModel {
   chemistry: Chemistry
   nominalV: number
   fullV: number
+  /** Straight off the charger (chargedCellV per cell): what every maximum-voltage check uses. */
+  chargedV: number
   cutoffV: number
   /** Label capacity: parallel cells × cell capacity. */
   ratedCapacityAh: number
@@ -27,6 +31,8 @@ export interface PackModel {
   peukertExponent: number
   /** Peukert reference current: rated capacity over its rated hours. */
   ratedCurrentA: number
+  /** Lithium: fraction of charge lost beyond I·R per ampere above ratedCurrentA (0: none). */
+  rateLossPerA: number
   /** Pack open-circuit voltage sampled every 1 % of state of charge, for a fast lookup. */
   openCircuitTableV: Float64Array
 }
@@ -45,6 +51,7 @@ export function buildPack(inputs: PackInputs, temperatureC: number): PackModel {
     chemistry: inputs.chemistry,
     nominalV: inputs.seriesCells * data.nominalCellV, // engine.md §1
     fullV: inputs.seriesCells * data.fullCellV,
+    chargedV: inputs.seriesCells * data.chargedCellV,
     cutoffV: inputs.seriesCells * inputs.cutoffCellV,
     ratedCapacityAh,
     // engine.md §1: capacity = p × cell Ah × health × temperature factor
@@ -58,8 +65,22 @@ export function buildPack(inputs: PackInputs, temperatureC: number): PackModel {
       resistanceTemperatureFactor(inputs.chemistry, temperatureC),
     peukertExponent: inputs.peukertExponent,
     ratedCurrentA: ratedCapacityAh / data.ratedHours,
+    // per C → per ampere of this pack
+    rateLossPerA: (inputs.rateLossPerC ?? 0) / ratedCapacityAh,
     openCircuitTableV: table,
   }
+}
+
+// common practice: cell makers' cycle-life tests and battery standards call a cell worn out at
+// 80 % of its capacity or at twice its new resistance, whichever comes first (e.g. the end-of-life
+// criteria of IEC 62660-1 cycle tests and of IEEE 1188 for stationary lead-acid); linking the two,
+// resistance rises in a straight line as health falls and doubles at 80 % health
+const HEALTH_AT_DOUBLED_RESISTANCE_PCT = 80
+
+/** How much a cell's resistance has grown at this health (1 when new or better than labelled). */
+export function ageingResistanceFactor(healthPct: number): number {
+  const lostPct = Math.max(100 - healthPct, 0)
+  return 1 + lostPct / (100 - HEALTH_AT_DOUBLED_RESISTANCE_PCT)
 }
 
 /** Pack open-circuit voltage at a state of charge given as a fraction 0..1. */
@@ -69,6 +90,20 @@ export function packOpenCircuitV(pack: PackModel, socFraction: number): number {
   const lower = pack.openCircuitTableV[index]!
   const upper = pack.openCircuitTableV[index + 1]!
   return lower + (position - index) * (upper - lower)
+}
+
+/** The state of charge (fraction) at which the pack at rest reads `openCircuitV`: 0 if it reads
+ *  more even when empty, 1 if it reads less even when full (the OCV rises with charge). */
+export function socAtOpenCircuitV(pack: PackModel, openCircuitV: number): number {
+  const table = pack.openCircuitTableV
+  if (openCircuitV <= table[0]!) return 0
+  if (openCircuitV >= table[OCV_SAMPLES_PER_UNIT]!) return 1
+  let index = 0
+  while (table[index + 1]! < openCircuitV) index++
+  const lower = table[index]!
+  const upper = table[index + 1]!
+  const within = upper > lower ? (openCircuitV - lower) / (upper - lower) : 0
+  return (index + within) / OCV_SAMPLES_PER_UNIT
 }
 
 /** Returned by the current solves when the source cannot deliver the power at all. A number,
@@ -123,6 +158,21 @@ export function peukertChargeRateA(
   if (currentA <= ratedCurrentA || peukertExponent === 1) return currentA
   // exp(a·ln x) is x^a, about twice as fast as Math.pow in V8, and this runs every step.
   return currentA * Math.exp((peukertExponent - 1) * Math.log(currentA / ratedCurrentA))
+}
+
+// from memory: makers' curves flatten out: the loss beyond I·R stays within about 5 % even at
+// the highest rates a power cell is rated for (chemistry.ts names the datasheets)
+export const LITHIUM_RATE_LOSS_MAX = 0.05
+
+/**
+ * Rate at which charge leaves the pack: Peukert's law where the chemistry (or the user) gives an
+ * exponent, times the lithium rate loss beyond I·R (rateLossPerA above the rated current, capped).
+ */
+export function chargeRateA(pack: PackModel, currentA: number): number {
+  const rateA = peukertChargeRateA(currentA, pack.ratedCurrentA, pack.peukertExponent)
+  if (pack.rateLossPerA === 0 || currentA <= pack.ratedCurrentA) return rateA
+  const loss = (currentA - pack.ratedCurrentA) * pack.rateLossPerA
+  return rateA * (1 + (loss < LITHIUM_RATE_LOSS_MAX ? loss : LITHIUM_RATE_LOSS_MAX))
 }
 
 /** Peukert's law in closed form, t = H·(C/(I·H))^k (engine.md §1). */

@@ -4,10 +4,12 @@ import type { AssumedValue, EstimateRequest, SegmentState, SwapPolicy } from '..
 import { CHEMISTRY_DATA, defaultCellResistanceOhm } from './chemistry'
 import type { Chemistry } from './chemistry'
 import type { PackInputs } from './pack'
+import { ageingResistanceFactor } from './pack'
 import { DEFAULT_CONNECTOR_OHM, leadAreaMm2 } from './leads'
 import type { LeadInputs } from './leads'
 import {
   DEFAULT_CLASS_A_EFFICIENCY,
+  DEFAULT_CLASS_AB_IDLE_CURRENT_A,
   DEFAULT_CLASS_D_EFFICIENCY,
   DEFAULT_IDLE_CURRENT_A,
   DEFAULT_RATED_THD_PCT,
@@ -20,7 +22,7 @@ import { DEFAULT_BOUNDARY_GAIN_DB, DEFAULT_LISTENER_DISTANCE_M } from './sound'
 export const DEFAULT_TEMPERATURE_C = 25 // common practice: cells and batteries are rated at 25 °C
 export const DEFAULT_HEALTH_PCT = 100 // ours: a pack as labelled until a discharge log says otherwise
 export const DEFAULT_PACK_COUNT = 1
-export const DEFAULT_PLAYING_PCT = 100 // engine.md §9
+export const DEFAULT_PLAYING_PCT = 100 // ours: playing all the time unless told
 export const DEFAULT_SWAP_BELOW_SOC_PCT = 30 // ours: swap at a break once a pack is below 30 %
 
 export interface ResolvedSegment {
@@ -53,6 +55,8 @@ export interface ResolvedRequest {
     supplyMinV: number | null
     supplyMaxV: number | null
     lockoutV: number | null
+    /** Bulk supply capacitance; 0 when not given (none is taken: the safe side). */
+    bulkCapacitanceF: number
     idleCurrentA: number
     efficiency: number
     minLoadOhm: number
@@ -76,12 +80,49 @@ export interface ResolvedRequest {
   swapPolicy: Required<SwapPolicy>
 }
 
+type Pick = <T extends number | string | boolean>(
+  given: T | undefined,
+  field: string,
+  fallback: T,
+  source: string,
+) => T
+
+/** The input range the pack's voltage reaches for this accessory (AccessoryInputs.exposedInput). */
+function exposedInput(
+  accessory: NonNullable<EstimateRequest['accessories']>[number],
+  index: number,
+  pick: Pick,
+): AccessoryInputs['exposedInput'] {
+  if (accessory.feed === 'direct') return { minV: accessory.inputMinV, maxV: accessory.inputMaxV }
+  const { converterInputMinV, converterInputMaxV } = accessory
+  if (converterInputMinV !== undefined || converterInputMaxV !== undefined) {
+    return { minV: converterInputMinV ?? 0, maxV: converterInputMaxV ?? Number.MAX_VALUE }
+  }
+  if (accessory.feed !== 'isolated') return null
+  // Safe side: small isolated modules are often unregulated, passing the pack's voltage through
+  // in a fixed ratio, so without the module's own range the accessory's range is checked.
+  return {
+    minV: pick(
+      undefined,
+      `accessories.${index}.converterInputMinV`,
+      accessory.inputMinV,
+      "ours, safe side: an isolated module taken as unregulated, so the accessory's range applies",
+    ),
+    maxV: pick(
+      undefined,
+      `accessories.${index}.converterInputMaxV`,
+      accessory.inputMaxV,
+      "ours, safe side: an isolated module taken as unregulated, so the accessory's range applies",
+    ),
+  }
+}
+
 export function resolveRequest(request: EstimateRequest): {
   resolved: ResolvedRequest
   assumed: AssumedValue[]
 } {
   const assumed: AssumedValue[] = []
-  function pick<T extends number | string | boolean>(
+  const pick: Pick = function pick<T extends number | string | boolean>(
     given: T | undefined,
     field: string,
     fallback: T,
@@ -101,7 +142,7 @@ export function resolveRequest(request: EstimateRequest): {
     programme.playingPct,
     'programme.playingPct',
     DEFAULT_PLAYING_PCT,
-    'engine.md §9 default',
+    'ours: the programme plays all the time unless told',
   )
   const resolvedProgramme = {
     crestFactorDb: programme.crestFactorDb,
@@ -109,6 +150,7 @@ export function resolveRequest(request: EstimateRequest): {
     playingPct: programmePlayingPct,
   }
   const supplyMinV = amplifier.supplyMinV ?? null
+  const healthPct = pick(pack.healthPct, 'pack.healthPct', DEFAULT_HEALTH_PCT, 'ours: as labelled')
   const driversPerChannel = speakers.parallel * speakers.banks
 
   const resolved: ResolvedRequest = {
@@ -117,25 +159,34 @@ export function resolveRequest(request: EstimateRequest): {
       seriesCells: pack.seriesCells,
       parallelCells: pack.parallelCells,
       cellCapacityAh: pack.cellCapacityAh,
-      cellResistanceOhm: pick(
-        pack.cellResistanceOhm,
-        'pack.cellResistanceOhm',
-        defaultCellResistanceOhm(pack.chemistry, pack.cellCapacityAh),
-        `from memory: typical ${chemistry.label} cell, ${chemistry.resistanceOhmAh} ohm·Ah over the cell capacity`,
-      ),
+      cellResistanceOhm:
+        pack.cellResistanceOhm ??
+        pick(
+          undefined,
+          'pack.cellResistanceOhm',
+          defaultCellResistanceOhm(pack.chemistry, pack.cellCapacityAh) *
+            ageingResistanceFactor(healthPct),
+          `from memory: typical ${chemistry.label} cell, ${chemistry.resistanceOhmAh} ohm·Ah over the cell capacity${healthPct < 100 ? `, raised for ${healthPct} % health (doubles at 80 %, common practice)` : ''}`,
+        ),
       cutoffCellV: pick(
         pack.cutoffCellV,
         'pack.cutoffCellV',
         chemistry.cutoffCellV,
         `common practice for ${chemistry.label}`,
       ),
-      healthPct: pick(pack.healthPct, 'pack.healthPct', DEFAULT_HEALTH_PCT, 'ours: as labelled'),
+      healthPct,
       peukertExponent: pick(
         pack.peukertExponent,
         'pack.peukertExponent',
         chemistry.peukertExponent,
-        pack.chemistry === 'lead-acid' ? 'engine.md §1: k ≈ 1.1–1.3' : 'from memory',
+        pack.chemistry === 'lead-acid'
+          ? 'common practice: lead-acid k ≈ 1.1–1.3'
+          : chemistry.isLithium
+            ? 'no Peukert for lithium: the I·R sag and a small rate loss from makers’ curves'
+            : 'from memory',
       ),
+      // A Peukert exponent given by the user carries the whole rate effect.
+      rateLossPerC: pack.peukertExponent === undefined ? chemistry.rateLossPerC : 0,
       count: pick(pack.count, 'pack.count', DEFAULT_PACK_COUNT, 'ours: one pack'),
       maxDischargeA: pack.maxDischargeA ?? null,
       label: pack.label,
@@ -165,10 +216,12 @@ export function resolveRequest(request: EstimateRequest): {
         amplifier.ratedThdPct,
         'amplifier.ratedThdPct',
         DEFAULT_RATED_THD_PCT,
-        'ours: the rating taken as the clean 1 % THD figure',
+        'common practice: headline ratings are usually 10 % THD figures',
       ),
       supplyMinV,
       supplyMaxV: amplifier.supplyMaxV ?? null,
+      // Not given: none taken, the safe side for dropouts (a bass note outlasts the capacitors).
+      bulkCapacitanceF: (amplifier.bulkCapacitanceUF ?? 0) * 1e-6,
       lockoutV:
         amplifier.lockoutV ??
         (supplyMinV === null
@@ -185,19 +238,21 @@ export function resolveRequest(request: EstimateRequest): {
           : pick(
               amplifier.idleCurrentA,
               'amplifier.idleCurrentA',
-              DEFAULT_IDLE_CURRENT_A,
-              'engine.md §4 default',
+              amplifierClass === 'ab' ? DEFAULT_CLASS_AB_IDLE_CURRENT_A : DEFAULT_IDLE_CURRENT_A,
+              amplifierClass === 'ab'
+                ? 'from memory: class AB power chips idle at 0.1–0.25 A'
+                : 'from memory: small class D boards idle at 20–80 mA',
             ),
       efficiency:
         amplifierClass === 'ab'
-          ? 1 // class AB efficiency follows from the supply and the swing (engine.md §4)
+          ? 1 // class AB efficiency follows from the supply and the swing (docs/estimate-api.md)
           : pick(
               amplifier.efficiency,
               'amplifier.efficiency',
               efficiencyFallback,
               amplifierClass === 'a'
                 ? 'Boylestad & Nashelsky ch. 12: series-fed class A at most 25 %'
-                : 'engine.md §4 default',
+                : 'from memory: small class D boards convert about 88 % at useful output',
             ),
       efficiencyGiven: amplifier.efficiency !== undefined,
       minLoadOhm: pick(
@@ -243,6 +298,7 @@ export function resolveRequest(request: EstimateRequest): {
               DEFAULT_CONVERTER_EFFICIENCY[accessory.feed],
               'from memory: typical small converter module',
             ),
+      exposedInput: exposedInput(accessory, index, pick),
       idleW:
         accessory.feed === 'direct' || accessory.feed === 'linear'
           ? 0
@@ -280,7 +336,7 @@ export function resolveRequest(request: EstimateRequest): {
       request.boundaryGainDb,
       'boundaryGainDb',
       DEFAULT_BOUNDARY_GAIN_DB,
-      'engine.md §8: free field',
+      'ours: free field unless a boundary is given',
     ),
     childrenPresent: request.childrenPresent ?? false,
     swapPolicy: {

@@ -4,8 +4,12 @@ import type { SegmentState, StopReason, SwapPolicy } from '../schemas/estimate'
 import type { AmplifierModel } from './amplifier'
 import { amplifierConstantCurrentA, amplifierConstantPowerW } from './amplifier'
 import type { PackModel } from './pack'
-import { CANNOT_DELIVER, mixedLoadCurrentA, packOpenCircuitV, peukertChargeRateA } from './pack'
-import { SINE_BURST_MEAN_TO_RMS } from './programme'
+import {
+  CANNOT_DELIVER,
+  chargeRateA as packChargeRateA,
+  mixedLoadCurrentA,
+  packOpenCircuitV,
+} from './pack'
 import { TimelineRecorder } from './timeline'
 
 export const MAX_STEP_S = 10 // engine.md §7: step ≤ 10 s of simulated time
@@ -170,6 +174,8 @@ export interface RunTotals {
   /** Lowest clip/peak power ratio while playing (1 = peaks just at clipping); Infinity if none. */
   minimumHeadroomRatio: number
   clipsFromS: number | null
+  /** Lowest supply at the amplifier while playing (Infinity if nothing played). */
+  lowestPlayingSupplyV: number
 }
 
 /** The run's totals where a segment ended (or where the run stopped inside it). */
@@ -274,6 +280,7 @@ export function runRig(
     lowestSoc: 1,
     minimumHeadroomRatio: Infinity,
     clipsFromS: null,
+    lowestPlayingSupplyV: Infinity,
   }
   let prefix: RunOutcome | null = null
   let stepCount = 0
@@ -444,7 +451,7 @@ export function runRig(
       stepCount++
 
       let stepS = remainingS < MAX_STEP_S ? remainingS : MAX_STEP_S
-      const chargeRateA = peukertChargeRateA(currentA, pack.ratedCurrentA, pack.peukertExponent)
+      const chargeRateA = packChargeRateA(pack, currentA)
       let emptied = false
       if (chargeRateA > 0 && at.chargeAs + chargeRateA * stepS >= capacityAs) {
         stepS = (capacityAs - at.chargeAs) / chargeRateA
@@ -471,6 +478,8 @@ export function runRig(
             (rig.amplifier.clipPowerPerV2 * point.supplyV * point.supplyV) / segment.peakPerChannelW
           if (ratio < totals.minimumHeadroomRatio) totals.minimumHeadroomRatio = ratio
           if (ratio < 1 && totals.clipsFromS === null) totals.clipsFromS = at.elapsedS
+          if (point.supplyV < totals.lowestPlayingSupplyV)
+            totals.lowestPlayingSupplyV = point.supplyV
         }
       }
       at.chargeAs = emptied ? capacityAs : at.chargeAs + chargeRateA * stepS
@@ -505,56 +514,5 @@ export function runRig(
     packRuns,
     timeline,
     prefix,
-  }
-}
-
-export interface PeakDemand {
-  currentA: number
-  /** At the pack terminals and at the amplifier after the lead. */
-  terminalV: number
-  supplyV: number
-  /** False when the pack cannot deliver the burst at all. */
-  delivered: boolean
-}
-
-/**
- * Peak current (engine.md §7): the supply current while the programme sits at its peak level as
- * a sustained sine burst, at a given state of charge, through pack and lead resistance. The burst
- * is capped at what the sagging supply can swing (three passes settle the cap).
- */
-export function peakDemand(
-  rig: RigLoads,
-  peakPerChannelW: number,
-  socFraction: number,
-): PeakDemand {
-  const openV = packOpenCircuitV(rig.pack, socFraction)
-  const burst: RunSegment = {
-    label: 'peak',
-    state: 'on',
-    durationS: 0,
-    playingShare: 1,
-    outputPerChannelW: peakPerChannelW,
-    peakPerChannelW,
-    averageToClipAtClipping: 1, // a sine
-    meanToRms: SINE_BURST_MEAN_TO_RMS,
-    headroomPeakW: peakPerChannelW,
-  }
-  const point = emptyOperatingPoint()
-  let supplyGuessV = openV
-  for (let pass = 0; pass < 3; pass++) {
-    if (!solveOperatingPoint(rig, burst, openV, rig.pack.resistanceOhm, supplyGuessV, point)) {
-      // Beyond the maximum-power point: the most the source gives is at half its voltage.
-      const totalOhm = rig.pack.resistanceOhm + rig.leadOhm
-      const currentA = openV / (2 * totalOhm)
-      const terminalV = openV - currentA * rig.pack.resistanceOhm
-      return { currentA, terminalV, supplyV: terminalV - currentA * rig.leadOhm, delivered: false }
-    }
-    supplyGuessV = point.supplyV
-  }
-  return {
-    currentA: point.currentA,
-    terminalV: point.terminalV,
-    supplyV: point.supplyV,
-    delivered: true,
   }
 }

@@ -1,4 +1,4 @@
-// Sound level and hearing (engine.md §8). Free-field estimates: measure with a meter on the day.
+// Sound level and hearing. Free-field estimates: measure with a meter on the day.
 
 export const DEFAULT_LISTENER_DISTANCE_M = 3 // ours: the front of a small outdoor audience
 export const DEFAULT_BOUNDARY_GAIN_DB = 0 // engine.md §8: free field unless the user says otherwise
@@ -9,19 +9,23 @@ export const WHO_VENUE_LAEQ_DB = 100 // WHO Global standard for safe listening v
 // from memory: guidance for events with children sits several dB below the adult figures
 export const CHILDREN_CAUTION_DB = 80
 
-/** Sound pressure level at distance d (engine.md §8):
- *  S + 10·log10(P_driver) + 20·log10(N coherent) − 20·log10(d/1 m) + boundary gain. */
+/**
+ * Sound pressure level at distance d from drivers at different places, which add in power across
+ * the mid and high band an A-weighted level is made of (incoherent sources: Kinsler et al.,
+ * Fundamentals of Acoustics, on combining sound levels; Davis & Patronis, Sound System Engineering):
+ * S + 10·log10(N·P_driver) − 20·log10(d/1 m) + boundary gain, over the N drivers facing the
+ * listener, all channels together.
+ */
 export function soundLevelDb(
   sensitivityDb: number,
   driverPowerW: number,
-  coherentDrivers: number,
+  driversFacing: number,
   distanceM: number,
   boundaryGainDb: number,
 ): number {
   return (
     sensitivityDb +
-    10 * Math.log10(driverPowerW) +
-    20 * Math.log10(coherentDrivers) -
+    10 * Math.log10(driversFacing * driverPowerW) -
     distanceLossDb(distanceM) +
     boundaryGainDb
   )

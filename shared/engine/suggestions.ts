@@ -1,7 +1,7 @@
 // What to change when a schedule does not last: each fix is a patch to apply to the request.
 import type { EstimateRequest, PackSpec } from '../schemas/estimate'
-import { MAX_PACKS_SEARCHED, packsNeededForSchedule } from './compare'
-import { prepareRig, runPrepared } from './estimate'
+import { MAX_PACKS_SEARCHED, fitProblems, packsNeededForSchedule } from './compare'
+import { estimate, prepareRig, runPrepared } from './estimate'
 import { nominalWh } from './energy'
 import { CHEMISTRY_DATA } from './chemistry'
 import { buildPack } from './pack'
@@ -17,7 +17,7 @@ export interface FixSuggestions {
   levelDrop: { db: number; patch: RequestPatch } | null
   /** Extra charged packs needed (with swaps at once as each runs out). */
   extraPacks: { count: number; patch: RequestPatch } | null
-  /** The smallest candidate with more energy than the current pack that lasts with the same count. */
+  /** The smallest candidate with more energy than the current pack that fits and lasts with the same count. */
   largerPack: { index: number; label: string | null; nominalWh: number; patch: RequestPatch } | null
 }
 
@@ -108,7 +108,9 @@ export function suggestFixes(
   let largerPack: FixSuggestions['largerPack'] = null
   for (const candidate of larger) {
     const pack = { ...candidate.pack, count }
-    if (lastsSchedule(applyPatch(request, { pack }))) {
+    const patched = applyPatch(request, { pack })
+    // A pack that would harm or starve a part is never offered, however long it lasts.
+    if (lastsSchedule(patched) && fitProblems(estimate(patched)).length === 0) {
       largerPack = {
         index: candidate.index,
         label: candidate.pack.label ?? null,

@@ -7,14 +7,13 @@ import { CHEMISTRY_DATA } from './chemistry'
 import { LINEAR_HEAT_LIMIT_W } from './converters'
 import { leadAreaForCurrentMm2, leadCurrentRatingA } from './leads'
 import type { DropoutOnset } from './dropout'
+import { DROPOUT_NEAR_EMPTY_SOC_PCT } from './dropout'
 import { IMPEDANCE_DIP_FACTOR } from './speakers'
 import { CHILDREN_CAUTION_DB, NIOSH_REL_DBA, WHO_VENUE_LAEQ_DB } from './sound'
 
 export const LEAD_DROP_LIMIT_PCT = 3 // common practice: keep DC supply leads under 3 % drop
 export const LEAD_ACID_DEEP_DISCHARGE_SOC = 0.5 // common practice: below 50 % shortens AGM life
 export const COLD_PACK_C = 5 // ours: where the cold costs enough capacity to mention
-// ours: peaks that mute only in a pack's last 15 % are a reason to swap early, not to change the rig
-export const DROPOUT_NEAR_EMPTY_SOC_PCT = 15
 // ours: a lock-out that leaves under 2 % of the pack unused is within the tables' own error
 export const STRANDED_SOC_MINIMUM_PCT = 2
 export const HOT_PACK_C = 45 // common practice: lithium makers' upper discharge range starts near here
@@ -31,7 +30,7 @@ export const WARNING_CATALOGUE = {
   },
   'supply-over-max': {
     severity: 'danger',
-    meaning: "A full pack is above the amplifier's maximum supply voltage.",
+    meaning: "A pack straight off the charger is above the amplifier's maximum supply voltage.",
   },
   'supply-range-unknown': {
     severity: 'info',
@@ -50,7 +49,7 @@ export const WARNING_CATALOGUE = {
     meaning: "The average current is above the pack's maximum continuous discharge.",
   },
   'peak-current-over-rating': {
-    severity: 'caution',
+    severity: 'danger',
     meaning: "The current on programme peaks is above the pack's maximum continuous discharge.",
   },
   'pack-rating-unknown': {
@@ -67,11 +66,13 @@ export const WARNING_CATALOGUE = {
   },
   'dropout-risk': {
     severity: 'danger',
-    meaning: 'On bass peaks late in the run the supply falls below the lock-out: music cuts out.',
+    meaning:
+      "On bass peaks the supply falls below the amplifier's lock-out or a directly fed part's minimum: music cuts out.",
   },
   'dropout-near-empty': {
     severity: 'caution',
-    meaning: 'Near the end of each pack, bass peaks take the supply below the lock-out.',
+    meaning:
+      "Near the end of each pack, bass peaks take the supply below the amplifier's lock-out or a directly fed part's minimum.",
   },
   'peaks-clip': {
     severity: 'caution',
@@ -83,14 +84,15 @@ export const WARNING_CATALOGUE = {
   },
   'accessory-over-max': {
     severity: 'danger',
-    meaning: 'A directly fed accessory sees more than its maximum input voltage.',
+    meaning:
+      'An accessory or its converter sees more than its maximum input voltage with a pack straight off the charger.',
   },
   'accessory-under-min': {
-    severity: 'caution',
+    severity: 'danger',
     meaning: 'A directly fed accessory sees less than its minimum input voltage late in the run.',
   },
   'converter-mismatch': {
-    severity: 'caution',
+    severity: 'danger',
     meaning: "The chosen converter does not suit the pack's voltage window.",
   },
   'hearing-caution': {
@@ -159,7 +161,8 @@ export interface WarningFacts {
   capacityFactor: number
   loadOhm: number
   minLoadOhm: number
-  fullPackV: number
+  /** Straight off the charger. */
+  chargedPackV: number
   cutoffSupplyV: number
   supplyMaxV: number | null
   lockoutV: number | null
@@ -216,6 +219,56 @@ function stopInWords(reason: StopReason): string {
   }
 }
 
+/** Who mutes, in words. */
+function partInWords(part: string): string {
+  return part === 'amplifier' ? 'the amplifier' : `"${part}"`
+}
+
+function floorInWords(onset: DropoutOnset): string {
+  // No lock-out given: the floor is the pack's own limit, the most power it can deliver.
+  if (onset.floorV <= 0) return 'what the pack can deliver'
+  return onset.part === 'amplifier'
+    ? `its ${fixed(onset.floorV)} V lock-out`
+    : `its ${fixed(onset.floorV)} V minimum input`
+}
+
+/** The fixes in numbers, as one clause: "fit a lead of …, play 3 dB quieter, or …". */
+function dropoutFixes(onset: DropoutOnset): string {
+  const fixes: string[] = []
+  const { lead, quieterDb, parallelCells } = onset.fix
+  if (lead) {
+    fixes.push(`fit a lead of at least ${wireSize(lead.areaMm2, true)} at ${fixed(lead.lengthM)} m`)
+  }
+  if (quieterDb !== null) fixes.push(`lower the level by ${quieterDb} dB`)
+  if (parallelCells !== null) fixes.push(`use a pack with ${parallelCells} cells in parallel`)
+  if (fixes.length === 0)
+    return 'change the rig: a higher-voltage pack or a part with a lower floor'
+  if (fixes.length === 1) return fixes[0]!
+  return `${fixes.slice(0, -1).join(', ')}, or ${fixes[fixes.length - 1]}`
+}
+
+/** The part that mutes on bass peaks, from what charge, and the fix in numbers. */
+function dropoutWarning(onset: DropoutOnset, minPeakSupplyV: number): [WarningCode, string] {
+  const when =
+    onset.fromMinute !== null ? `, from about minute ${Math.round(onset.fromMinute)}` : ''
+  const who = partInWords(onset.part)
+  const charge = Math.round(onset.belowSocPct)
+  if (onset.belowSocPct < DROPOUT_NEAR_EMPTY_SOC_PCT) {
+    return [
+      'dropout-near-empty',
+      `Once a pack is below about ${charge} % charge${when}, bass peaks pull the supply under ${floorInWords(onset)} and ${who} may cut out: swap packs a little before then, or ${dropoutFixes(onset)}.`,
+    ]
+  }
+  const from =
+    onset.belowSocPct >= 100
+      ? ' even from a full pack'
+      : ` once a pack is below about ${charge} % charge${when}`
+  return [
+    'dropout-risk',
+    `On bass peaks the supply at the amplifier falls to ${fixed(minPeakSupplyV)} V, under ${floorInWords(onset)}${from}, so ${who} cuts out and the music stops: ${dropoutFixes(onset)}.`,
+  ]
+}
+
 export function collectWarnings(facts: WarningFacts): EstimateWarning[] {
   const warnings: EstimateWarning[] = []
   const add = (code: WarningCode, message: string) => warnings.push(warning(code, message))
@@ -244,10 +297,10 @@ export function collectWarnings(facts: WarningFacts): EstimateWarning[] {
       `The load is ${fixed(facts.loadOhm, 2)} ohm per channel, close to the amplifier's minimum of ${fixed(facts.minLoadOhm, 2)} ohm; real impedance dips below nominal, so watch the amplifier's temperature or raise the load.`,
     )
   }
-  if (facts.supplyMaxV !== null && facts.fullPackV > facts.supplyMaxV) {
+  if (facts.supplyMaxV !== null && facts.chargedPackV > facts.supplyMaxV) {
     add(
       'supply-over-max',
-      `A full pack gives ${fixed(facts.fullPackV)} V, above the amplifier's maximum supply of ${fixed(facts.supplyMaxV)} V: use a pack with fewer cells in series or an amplifier rated for it.`,
+      `A pack straight off the charger gives ${fixed(facts.chargedPackV)} V, above the amplifier's maximum supply of ${fixed(facts.supplyMaxV)} V, which can destroy it: use a pack with fewer cells in series or an amplifier rated for it.`,
     )
   }
   if (facts.supplyMaxV === null || facts.lockoutV === null) {
@@ -282,7 +335,7 @@ export function collectWarnings(facts: WarningFacts): EstimateWarning[] {
   } else if (facts.peakCurrentA > facts.maxDischargeA) {
     add(
       'peak-current-over-rating',
-      `On programme peaks the rig draws ${fixed(facts.peakCurrentA)} A, above the pack's ${fixed(facts.maxDischargeA)} A rating: lower the level or use a pack rated for more current; its protection may cut out on bass.`,
+      `On sustained bass notes the rig draws up to ${fixed(facts.peakCurrentA)} A, above the pack's ${fixed(facts.maxDischargeA)} A rating: its protection may cut out on bass and the cells run hot. Lower the level or use a pack rated for more current (more cells in parallel).`,
     )
   }
   if (facts.leadAreaMm2 !== null) {
@@ -303,30 +356,8 @@ export function collectWarnings(facts: WarningFacts): EstimateWarning[] {
       )
     }
   }
-  // Peaks that mute only in the last couple of percent are within the tables' own error.
-  const dropoutMatters =
-    facts.dropoutRisk && !(facts.dropout && facts.dropout.belowSocPct < STRANDED_SOC_MINIMUM_PCT)
-  if (dropoutMatters) {
-    const onset = facts.dropout
-    const when =
-      onset && onset.fromMinute !== null
-        ? `, from about minute ${Math.round(onset.fromMinute)}`
-        : ''
-    const lockout = facts.lockoutV !== null ? ` ${fixed(facts.lockoutV)} V` : ''
-    if (onset && onset.belowSocPct < DROPOUT_NEAR_EMPTY_SOC_PCT) {
-      add(
-        'dropout-near-empty',
-        `Once a pack is below about ${Math.round(onset.belowSocPct)} % charge${when}, bass peaks pull the amplifier's supply under its${lockout} lock-out and music may cut out: swap packs a little before then, or use a thicker, shorter lead or a pack with more cells in parallel.`,
-      )
-    } else {
-      const from = onset
-        ? ` once a pack is below about ${Math.round(onset.belowSocPct)} % charge${when}`
-        : ''
-      add(
-        'dropout-risk',
-        `On bass peaks the amplifier's supply falls to ${fixed(facts.minPeakSupplyV)} V${facts.lockoutV !== null ? `, below its ${fixed(facts.lockoutV)} V lock-out,` : ''}${from}, so music may cut out well before the pack is flat: lower the level, use a thicker, shorter lead, or a pack with more cells in parallel.`,
-      )
-    }
+  if (facts.dropoutRisk && facts.dropout) {
+    add(...dropoutWarning(facts.dropout, facts.minPeakSupplyV))
   }
   if (facts.clipsFromMinute !== null) {
     add(
@@ -342,8 +373,8 @@ export function collectWarnings(facts: WarningFacts): EstimateWarning[] {
       )
     }
     if (
-      converter.feed === 'direct' &&
-      (converter.verdict === 'over-max' || converter.verdict === 'step-down')
+      converter.verdict === 'over-max' ||
+      (converter.feed === 'direct' && converter.verdict === 'step-down')
     ) {
       add('accessory-over-max', `"${converter.label}": ${converter.advice}`)
     } else if (converter.feed === 'direct' && !converter.fits) {

@@ -28,6 +28,9 @@ export const libraryConverters: readonly LibraryConverter[] = [
     outputV: 12,
     efficiency: 0.82, // datasheet class: 3–10 W isolated modules, 78–86 %
     idleW: 0.3, // from memory: no-load input of 20–40 mA at 12 V
+    // datasheet class: regulated isolated modules with a 4:1 wide input, 9–36 V
+    converterInputMinV: 9,
+    converterInputMaxV: 36,
   }),
   converter('conv-boost-12v', 'Step-up module, 12 V out', {
     feed: 'boost',
@@ -52,7 +55,18 @@ export const libraryConverters: readonly LibraryConverter[] = [
 export function withConverter<Accessory extends Partial<AccessorySpec>>(
   accessory: Accessory,
   item: LibraryConverter,
-): Omit<Accessory, 'outputV' | 'efficiency' | 'idleW'> & LibraryConverter['part'] {
-  const { outputV: _outputV, efficiency: _efficiency, idleW: _idleW, ...rest } = accessory
+): Omit<
+  Accessory,
+  'outputV' | 'efficiency' | 'idleW' | 'converterInputMinV' | 'converterInputMaxV'
+> &
+  LibraryConverter['part'] {
+  const {
+    outputV: _outputV,
+    efficiency: _efficiency,
+    idleW: _idleW,
+    converterInputMinV: _converterInputMinV,
+    converterInputMaxV: _converterInputMaxV,
+    ...rest
+  } = accessory
   return { ...rest, ...item.part }
 }

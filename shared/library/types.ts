@@ -23,7 +23,10 @@ export type LibrarySpeakers = LibraryItem<SpeakersSpec>
 export type LibraryAccessory = LibraryItem<AccessorySpec>
 /** A converter module: an accessory's converter settings (any feed but direct). */
 export type LibraryConverter = LibraryItem<
-  Pick<AccessorySpec, 'outputV' | 'efficiency' | 'idleW'> & {
+  Pick<
+    AccessorySpec,
+    'outputV' | 'efficiency' | 'idleW' | 'converterInputMinV' | 'converterInputMaxV'
+  > & {
     feed: Exclude<AccessorySpec['feed'], 'direct'>
     outputV: number
   }

@@ -15,7 +15,7 @@ interface Bounds {
 }
 
 /** A finite number within bounds, with one plain message naming the field for every failure. */
-function quantity(label: string, bounds: Bounds) {
+export function quantity(label: string, bounds: Bounds) {
   const unit = bounds.unit ? ` ${bounds.unit}` : ''
   const message = bounds.whole
     ? `${label} must be a whole number from ${bounds.min} to ${bounds.max}${unit}`
@@ -36,7 +36,7 @@ function voltage(label: string) {
   return quantity(label, { min: 0, max: MAX_SUPPLY_V, aboveMin: true, unit: 'V' })
 }
 
-function text(label: string, maxLength: number) {
+export function text(label: string, maxLength: number) {
   const message = `${label} must be text of 1 to ${maxLength} characters`
   return z
     .string({ error: message })
@@ -86,7 +86,12 @@ export const CONVERTER_VERDICTS = [
   'buck-boost',
   'over-max',
 ] as const
-export const AIRLINE_CLASSES = ['up-to-100wh', '100-to-160wh', 'over-160wh'] as const
+export const AIRLINE_CLASSES = [
+  'up-to-100wh',
+  '100-to-160wh',
+  'over-160wh',
+  'not-lithium', // extension: the Wh classes are rules for lithium packs only
+] as const
 export const SEVERITIES = ['info', 'caution', 'danger'] as const
 
 export const packSchema = z
@@ -204,6 +209,12 @@ export const amplifierSchema = z
         aboveMin: true,
         unit: 'ohm',
       }).optional(),
+      // Extension: the board's supply capacitors, which smooth a little of a bass note's ripple.
+      bulkCapacitanceUF: quantity('Bulk capacitance on the supply', {
+        min: 0,
+        max: 1_000_000,
+        unit: 'µF',
+      }).optional(),
     },
     {
       error: 'Amplifier is required: class, bridged, channels and its rated power, load and supply',
@@ -260,10 +271,25 @@ export const accessorySchema = z
       outputV: voltage('Converter output voltage').optional(),
       efficiency: quantity('Converter efficiency', { min: 0, max: 1, aboveMin: true }).optional(),
       idleW: quantity('Converter idle draw', { min: 0, max: 50, unit: 'W' }).optional(),
+      // Extension: the converter module's own input range, checked against the pack's window.
+      converterInputMinV: voltage('Converter minimum input voltage').optional(),
+      converterInputMaxV: voltage('Converter maximum input voltage').optional(),
     },
     { error: 'Each accessory needs a name, power, input range and feed' },
   )
   .superRefine((accessory, context) => {
+    const { converterInputMinV, converterInputMaxV } = accessory
+    if (
+      converterInputMinV !== undefined &&
+      converterInputMaxV !== undefined &&
+      converterInputMinV > converterInputMaxV
+    ) {
+      context.addIssue({
+        code: 'custom',
+        path: ['converterInputMinV'],
+        message: `Accessory "${accessory.label}": the converter's minimum input voltage must not be above its maximum`,
+      })
+    }
     if (accessory.inputMinV > accessory.inputMaxV) {
       context.addIssue({
         code: 'custom',
@@ -320,35 +346,52 @@ export const swapPolicySchema = z.object(
   { error: 'Swap policy must give a mode' },
 )
 
-export const estimateRequestSchema = z.object(
-  {
-    pack: packSchema,
-    leads: leadsSchema.optional(),
-    amplifier: amplifierSchema,
-    speakers: speakersSchema,
-    accessories: z
-      .array(accessorySchema, { error: 'Accessories must be a list' })
-      .max(20, { error: 'At most 20 accessories' })
-      .optional(),
-    programme: programmeSchema,
-    schedule: z
-      .array(scheduleSegmentSchema, { error: 'Schedule must be a list of segments' })
-      .min(1, { error: 'A schedule needs at least one segment' })
-      .max(200, { error: 'A schedule may have at most 200 segments' })
-      .refine(
-        (segments) =>
-          segments.reduce((total, segment) => total + segment.minutes, 0) <= MAX_SCHEDULE_MINUTES,
-        { error: `A schedule may last at most 7 days (${MAX_SCHEDULE_MINUTES} minutes) in all` },
-      )
-      .optional(),
-    temperatureC: quantity('Temperature', { min: -40, max: 70, unit: '°C' }).optional(),
-    listenerDistanceM: quantity('Listener distance', { min: 0.5, max: 1000, unit: 'm' }).optional(),
-    boundaryGainDb: quantity('Boundary gain', { min: 0, max: 12, unit: 'dB' }).optional(),
-    childrenPresent: flag('Children present').optional(),
-    swapPolicy: swapPolicySchema.optional(),
-  },
-  { error: 'The estimate request must be a JSON object' },
-)
+export const estimateRequestSchema = z
+  .object(
+    {
+      pack: packSchema,
+      leads: leadsSchema.optional(),
+      amplifier: amplifierSchema,
+      speakers: speakersSchema,
+      accessories: z
+        .array(accessorySchema, { error: 'Accessories must be a list' })
+        .max(20, { error: 'At most 20 accessories' })
+        .optional(),
+      programme: programmeSchema,
+      schedule: z
+        .array(scheduleSegmentSchema, { error: 'Schedule must be a list of segments' })
+        .min(1, { error: 'A schedule needs at least one segment' })
+        .max(200, { error: 'A schedule may have at most 200 segments' })
+        .refine(
+          (segments) =>
+            segments.reduce((total, segment) => total + segment.minutes, 0) <= MAX_SCHEDULE_MINUTES,
+          { error: `A schedule may last at most 7 days (${MAX_SCHEDULE_MINUTES} minutes) in all` },
+        )
+        .optional(),
+      temperatureC: quantity('Temperature', { min: -40, max: 70, unit: '°C' }).optional(),
+      listenerDistanceM: quantity('Listener distance', {
+        min: 0.5,
+        max: 1000,
+        unit: 'm',
+      }).optional(),
+      boundaryGainDb: quantity('Boundary gain', { min: 0, max: 12, unit: 'dB' }).optional(),
+      childrenPresent: flag('Children present').optional(),
+      swapPolicy: swapPolicySchema.optional(),
+    },
+    { error: 'The estimate request must be a JSON object' },
+  )
+  .superRefine((request, context) => {
+    // facingListener counts drivers of all channels, so it cannot exceed the rig's drivers.
+    const { speakers, amplifier } = request
+    const totalDrivers = speakers.parallel * speakers.banks * amplifier.channels
+    if (speakers.facingListener !== undefined && speakers.facingListener > totalDrivers) {
+      context.addIssue({
+        code: 'custom',
+        path: ['speakers', 'facingListener'],
+        message: `Drivers facing the listener (${speakers.facingListener}) cannot be more than the rig's ${totalDrivers} drivers (all channels)`,
+      })
+    }
+  })
 
 export type EstimateRequest = z.infer<typeof estimateRequestSchema>
 /** What a client may send (before parsing; the same shape, names and optional fields). */
@@ -447,11 +490,32 @@ export const estimateResultSchema = z.object({
     packLoss: finite,
   }),
   clipPowerW: z.object({ full: finite, cutoff: finite }),
+  /** Largest instantaneous supply current on a sustained bass note over the whole run. */
   peakCurrentA: finite,
+  /** Lowest voltage at the pack's own terminals on those peaks. */
   minPeakTerminalV: finite,
+  /** Extension: lowest voltage at the amplifier's terminals (after the lead) on those peaks. */
+  minPeakSupplyV: finite,
   dropoutRisk: z.boolean(),
-  /** Extension: the charge below which peaks mute the amplifier, and the first minute of it. */
-  dropout: z.object({ belowSocPct: finite, fromMinute: finite.nullable() }).nullable(),
+  /**
+   * Extension: the part that mutes first on bass peaks, the charge below which it does, the first
+   * minute of it, and the fixes in numbers that clear it.
+   */
+  dropout: z
+    .object({
+      belowSocPct: finite,
+      fromMinute: finite.nullable(),
+      /** 'amplifier', or the label of an accessory fed directly from the lead. */
+      part: z.string(),
+      /** The amplifier's lock-out or the accessory's minimum input. */
+      floorV: finite,
+      fix: z.object({
+        lead: z.object({ awg: z.number().int(), areaMm2: finite, lengthM: finite }).nullable(),
+        quieterDb: finite.nullable(),
+        parallelCells: z.number().int().nullable(),
+      }),
+    })
+    .nullable(),
   splDb: z.object({ average: finite, peak: finite }).optional(),
   exposure: z
     .object({
@@ -477,6 +541,8 @@ export const estimateResultSchema = z.object({
     label: z.string().optional(),
     nominalV: finite,
     fullV: finite,
+    /** Extension: straight off the charger, what the maximum-voltage checks use. */
+    chargedV: finite,
     cutoffV: finite,
     ratedCapacityAh: finite,
     capacityAh: finite,

@@ -14,17 +14,34 @@ import { apiRequest } from './http'
 
 const planBase = (teamId: number, planId: number) => `/v1/teams/${teamId}/plans/${planId}`
 
+/** Whose share links: a plan's (the default) or an event's. */
+export type ShareLinkOwner = 'plans' | 'events'
+const ownerBase = (teamId: number, id: number, owner: ShareLinkOwner) =>
+  `/v1/teams/${teamId}/${owner}/${id}`
+
 export const getPlanCard = (teamId: number, planId: number) =>
   apiRequest<PlanCardResponse>(`${planBase(teamId, planId)}/card`)
 
-export const listShareLinks = (teamId: number, planId: number) =>
-  apiRequest<ShareLinkList>(`${planBase(teamId, planId)}/share-links`)
+export const listShareLinks = (teamId: number, id: number, owner: ShareLinkOwner = 'plans') =>
+  apiRequest<ShareLinkList>(`${ownerBase(teamId, id, owner)}/share-links`)
 
-export const createShareLink = (teamId: number, planId: number, body: ShareLinkBody) =>
-  apiRequest<CreatedShareLink>(`${planBase(teamId, planId)}/share-links`, { method: 'POST', body })
+export const createShareLink = (
+  teamId: number,
+  id: number,
+  body: ShareLinkBody,
+  owner: ShareLinkOwner = 'plans',
+) =>
+  apiRequest<CreatedShareLink>(`${ownerBase(teamId, id, owner)}/share-links`, {
+    method: 'POST',
+    body,
+  })
 
-export const revokeShareLink = (teamId: number, planId: number, linkId: number) =>
-  apiRequest<void>(`${planBase(teamId, planId)}/share-links/${linkId}`, { method: 'DELETE' })
+export const revokeShareLink = (
+  teamId: number,
+  id: number,
+  linkId: number,
+  owner: ShareLinkOwner = 'plans',
+) => apiRequest<void>(`${ownerBase(teamId, id, owner)}/share-links/${linkId}`, { method: 'DELETE' })
 
 export const emailCard = (teamId: number, planId: number, body: CardEmailBody) =>
   apiRequest<CardEmailResponse>(`${planBase(teamId, planId)}/card-emails`, {

@@ -18,7 +18,7 @@ import { apiRequest } from './http'
 // The team's parts library and saved rigs (design/api.md, "Team-owned resources").
 
 export type ResourceCollection =
-  'packs' | 'amplifiers' | 'speakers' | 'accessories' | 'rigs' | 'plans'
+  'packs' | 'amplifiers' | 'speakers' | 'accessories' | 'rigs' | 'plans' | 'events'
 
 /** A body as the client sends it: the server fills in what its schema defaults. */
 type Sendable<Body> = Omit<Body, 'label'>

@@ -11,8 +11,8 @@ const messageOf = (caught: unknown, fallback: string) =>
 
 /**
  * A saved pack, its discharge logs and the one on show, with upload (and its progress), delete
- * and accept. The model curve is the engine's pack under the log's average current, run here in
- * the browser as the bench does.
+ * and accept. The model curve is the engine's pack with the log's measured health under the log's
+ * average current, run here in the browser as the bench does.
  */
 export function useDischargeLogs(packId: Ref<number | undefined>) {
   const { teamId, canEdit } = useTeamAccess()
@@ -24,10 +24,28 @@ export function useDischargeLogs(packId: Ref<number | undefined>) {
   const uploadProgress = ref<number | undefined>()
   const uploadError = ref<string | undefined>()
 
+  // The calibrated model: the pack with this log's measured health, at the log's current and to
+  // its cutoff, which is what the log should be drawn over (it delivers the log's Ah).
   const model = computed(() => {
     const log = selected.value
     if (!pack.value || !log) return undefined
-    return modelConstantCurrentDischarge(pack.value, log.averageCurrentA)
+    return modelConstantCurrentDischarge(
+      {
+        ...pack.value,
+        cutoffCellV: log.cutoffV / pack.value.seriesCells,
+        healthPct: log.calibration ? log.healthPct : pack.value.healthPct,
+      },
+      log.averageCurrentA,
+    )
+  })
+  // The pack as saved now (its own health figure), at the same current.
+  const savedModel = computed(() => {
+    const log = selected.value
+    if (!pack.value || !log) return undefined
+    return modelConstantCurrentDischarge(
+      { ...pack.value, cutoffCellV: log.cutoffV / pack.value.seriesCells },
+      log.averageCurrentA,
+    )
   })
 
   function ids(): { team: number; pack: number } | undefined {
@@ -126,6 +144,7 @@ export function useDischargeLogs(packId: Ref<number | undefined>) {
     logs,
     selected,
     model,
+    savedModel,
     loading,
     error,
     uploadProgress,

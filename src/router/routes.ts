@@ -15,6 +15,31 @@ export interface RouteNamedMap {
     { planId: string | number },
     { planId: string }
   >
+  events: RouteRecordInfo<'events', '/events', Record<never, never>, Record<never, never>>
+  'event-new': RouteRecordInfo<
+    'event-new',
+    '/events/new',
+    Record<never, never>,
+    Record<never, never>
+  >
+  event: RouteRecordInfo<
+    'event',
+    '/events/:eventId',
+    { eventId: string | number },
+    { eventId: string }
+  >
+  'event-card': RouteRecordInfo<
+    'event-card',
+    '/events/:eventId/card',
+    { eventId: string | number },
+    { eventId: string }
+  >
+  'shared-event-card': RouteRecordInfo<
+    'shared-event-card',
+    '/shared/events/:token',
+    { token: string },
+    { token: string }
+  >
   'rig-card': RouteRecordInfo<
     'rig-card',
     '/rigs/:rigId/card',
@@ -117,6 +142,37 @@ export const routes: RouteRecordRaw[] = [
     name: 'plan-card',
     component: () => import('@/views/PlanCardView.vue'),
     meta: { title: 'Runtime card', access: 'member' },
+  },
+  {
+    path: '/events',
+    name: 'events',
+    component: () => import('@/views/EventsView.vue'),
+    meta: { title: 'Events' },
+  },
+  {
+    path: '/events/new',
+    name: 'event-new',
+    component: () => import('@/views/EventView.vue'),
+    meta: { title: 'New event', access: 'member' },
+  },
+  {
+    path: '/events/:eventId(\\d+)',
+    name: 'event',
+    component: () => import('@/views/EventView.vue'),
+    meta: { title: 'Event', access: 'member' },
+  },
+  {
+    path: '/events/:eventId(\\d+)/card',
+    name: 'event-card',
+    component: () => import('@/views/EventCardView.vue'),
+    meta: { title: 'Event card', access: 'member' },
+  },
+  // The page behind an event's share link (GET /api/v1/shared/events/:token), signed out.
+  {
+    path: '/shared/events/:token',
+    name: 'shared-event-card',
+    component: () => import('@/views/SharedEventCardView.vue'),
+    meta: { title: 'Event card', bare: true },
   },
   {
     path: '/rigs/:rigId(\\d+)/card',

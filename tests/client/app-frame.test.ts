@@ -23,7 +23,7 @@ describe('the app frame', () => {
   it('links every area of the product from the main navigation', async () => {
     const { wrapper } = await mountApp()
     const labels = wrapper.findAll('nav[aria-label="Main"] a').map((link) => link.text())
-    expect(labels).toEqual(['Bench', 'Rigs', 'Plans', 'Parts', 'Team'])
+    expect(labels).toEqual(['Bench', 'Rigs', 'Plans', 'Events', 'Parts', 'Team'])
     wrapper.unmount()
   })
 

@@ -54,4 +54,20 @@ describe('the live estimate', { timeout: benchTestTimeoutMs }, () => {
     expect(points.datasets[0]!.data.length).toBeGreaterThan(10)
     wrapper.unmount()
   })
+
+  it('says what must change before the runtime when the rig has a danger', async () => {
+    const wrapper = await mountBench()
+    expect(wrapper.find('[data-testid="must-change"]').exists()).toBe(false)
+    // Source: common practice: a li-ion pack straight off the charger reads 4.20 V per cell, so
+    // seven in series (29.4 V) are over the starting board's 26 V maximum supply: a danger.
+    useRigDraftStore().draft.pack.seriesCells = 7
+    await flushPromises()
+    const first = wrapper.get('[data-testid="must-change"]').text()
+    expect(first).toMatch(/must change before this rig is used/)
+    expect(first).toMatch(/29\.4 V, above the amplifier's maximum supply of 26\.0 V/)
+    expect(wrapper.get('[data-testid="runtime-not-valid"]').text()).toMatch(/Not valid/)
+    const headline = wrapper.get('[data-testid="runtime-headline"]').html()
+    expect(headline.indexOf('must-change')).toBeLessThan(headline.indexOf('data-testid="runtime"'))
+    wrapper.unmount()
+  })
 })

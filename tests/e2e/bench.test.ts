@@ -111,4 +111,23 @@ describe('the rig bench in Chromium', () => {
     await page.getByRole('button', { name: 'Light mode' }).click()
     expect(app.browser.consoleErrors).toEqual([])
   })
+
+  it('says what must change before the runtime when a pack is over the board maximum', async () => {
+    const { page } = app.browser
+    await page.goto(`${app.server.url}/`)
+    await page.getByTestId('runtime').waitFor()
+    expect(await page.getByTestId('must-change').count()).toBe(0)
+    // Source: common practice: 7 li-ion cells straight off the charger are 7 × 4.20 = 29.4 V,
+    // over the starting board's 26 V maximum supply.
+    const cells = page.getByLabel('Cells in series')
+    await cells.fill('7')
+    await cells.press('Tab')
+    await page.getByTestId('must-change').waitFor()
+    expect(await page.getByTestId('must-change').innerText()).toContain('29.4 V')
+    expect(await page.getByTestId('runtime-not-valid').innerText()).toContain('Not valid')
+    await app.browser.screenshot('bench-must-change')
+    await page.setViewportSize({ width: 390, height: 844 })
+    await page.getByTestId('strip-must-change').waitFor()
+    await app.browser.screenshot('bench-must-change-phone')
+  })
 })

@@ -8,6 +8,7 @@ import { createInvitation } from '../../server/teams/invitations'
 import type { TeamRole } from '../../shared/schemas/teams'
 import { strongPassword } from './accounts'
 import { seedDischargeLog } from './discharge-fixture'
+import { seedEventFixture } from './event-fixture'
 import { seedPlanFixture } from './plan-fixture'
 import { seedResourceFixture } from './resource-fixture'
 import { seedShareLinkFixture } from './share-link-fixture'
@@ -114,6 +115,11 @@ export async function createTeamFixture(
       ...logIds,
       ...planIds,
       ...seedShareLinkFixture(db, Number(planIds.planId), ids.admin, nowMs),
+      ...seedEventFixture(
+        db,
+        { teamId, userId: ids.admin, planRigId: Number(planIds.planRigId) },
+        nowMs,
+      ),
     },
   }
 }

@@ -6,6 +6,7 @@ import {
   speakersBody,
 } from '../helpers/resource-fixture'
 import { planBody } from '../helpers/plan-fixture'
+import { eventBody } from '../helpers/event-fixture'
 import type { Actor } from '../helpers/team-fixture'
 import type { MatrixRow } from './authorization-matrix'
 
@@ -52,5 +53,20 @@ export function resourceMatrixRows(team: TeamExpect): MatrixRow[] {
       { ...planBody, rigId: '#planRigId' },
       team(403, 204, 204),
     ),
+    // Events as plans: a day of the team's plans (`#eventPlanId` becomes the number).
+    ...resourceRows(
+      team,
+      'events',
+      'eventId',
+      { ...eventBody, planIds: ['#eventPlanId'] },
+      team(403, 204, 204),
+    ),
+    // The answer for an unsaved event: a read, so viewers may ask.
+    {
+      method: 'POST',
+      path: '/api/v1/teams/:teamId/events/preview',
+      body: { planIds: ['#eventPlanId'], pool: [], chargers: [] },
+      expect: team(200, 200, 200),
+    },
   ]
 }

@@ -47,6 +47,7 @@ export const authorizationMatrix: MatrixRow[] = [
   { method: 'GET', path: '/api/v1/library/converters', expect: everyone(200) },
   // Public; an empty body is refused as invalid input for everyone alike, never 401/403.
   { method: 'POST', path: '/api/v1/estimate', body: {}, expect: everyone(400) },
+  { method: 'POST', path: '/api/v1/compare', body: {}, expect: everyone(400) },
 
   {
     method: 'POST',
@@ -192,4 +193,22 @@ export const authorizationMatrix: MatrixRow[] = [
     expect: team(403, 201, 201),
   },
   { method: 'GET', path: '/api/v1/shared/:token', expect: everyone(200) },
+  // An event's card and its share links, as a plan's.
+  {
+    method: 'GET',
+    path: '/api/v1/teams/:teamId/events/:eventId/share-links',
+    expect: team(200, 200, 200),
+  },
+  {
+    method: 'POST',
+    path: '/api/v1/teams/:teamId/events/:eventId/share-links',
+    body: {},
+    expect: team(403, 201, 201),
+  },
+  {
+    method: 'DELETE',
+    path: '/api/v1/teams/:teamId/events/:eventId/share-links/:eventLinkId',
+    expect: team(403, 204, 204),
+  },
+  { method: 'GET', path: '/api/v1/shared/events/:eventToken', expect: everyone(200) },
 ]

@@ -4,6 +4,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { estimateResultSchema } from '../../shared/schemas/estimate'
 import { columnRig } from '../shared/rig-fixtures'
 import { createTestApp, type TestApp } from '../helpers/test-app'
+import { postUntilThrottled } from '../helpers/throttle'
 
 let testApp: TestApp
 beforeAll(() => {
@@ -61,6 +62,10 @@ describe('POST /api/v1/estimate', () => {
       .send('{"pack": {')
       .expect(400)
     expect(response.body.error.code).toBe('malformed-json')
+    // The documented error shape (docs/estimate-api.md): every 400 carries an issues list.
+    expect(response.body.error.issues).toEqual([
+      { path: '', message: 'The request body is not valid JSON' },
+    ])
   })
 
   it('never answers 500, whatever JSON arrives', async () => {
@@ -78,19 +83,8 @@ describe('POST /api/v1/estimate', () => {
   })
 
   it('throttles one address after its minute allowance, with Retry-After', async () => {
-    const own = createTestApp()
-    try {
-      let last = 0
-      let retryAfter: string | undefined
-      for (let attempt = 0; attempt < 130 && last !== 429; attempt++) {
-        const response = await request(own.app).post('/api/v1/estimate').send({})
-        last = response.status
-        retryAfter = response.headers['retry-after']
-      }
-      expect(last).toBe(429)
-      expect(Number(retryAfter)).toBeGreaterThan(0)
-    } finally {
-      await own.close()
-    }
+    const throttled = await postUntilThrottled('/api/v1/estimate', 130)
+    expect(throttled.status).toBe(429)
+    expect(Number(throttled.retryAfter)).toBeGreaterThan(0)
   })
 })

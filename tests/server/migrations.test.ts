@@ -159,7 +159,7 @@ describe('the parts, rigs and plans migration', () => {
 describe('the mail privacy migration', () => {
   it('adds the confirmation and mail-count tables over a database in use, keeping every row', () => {
     const database = freshDatabase()
-    migrate(database.db, { migrationsFolder: migrationsUpTo('0002_') })
+    migrate(database.db, { migrationsFolder: migrationsUpTo('0003_') })
     const nowMs = Date.now()
     const { userId, teamId } = insertCrew(database, nowMs)
     seedResourceFixture(database.db, teamId, userId, nowMs)

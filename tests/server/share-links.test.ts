@@ -164,6 +164,18 @@ describe('a share link to a plan card', () => {
     const malformed = await openSignedOut('not-a-token').expect(404)
     const unknown = await openSignedOut('A'.repeat(43)).expect(404)
     expect(unknown.body).toEqual(malformed.body)
+    // The demo event lists the plan, and a plan in an event cannot be deleted: delete the event.
+    const teamPath = fixture.planPath.replace(/\/plans\/\d+$/, '')
+    const events = await request(fixture.testApp.app)
+      .get(`${teamPath}/events`)
+      .set('Cookie', fixture.cookies.editor)
+      .expect(200)
+    for (const event of events.body.items as { id: number }[]) {
+      await request(fixture.testApp.app)
+        .delete(`${teamPath}/events/${event.id}`)
+        .set('Cookie', fixture.cookies.editor)
+        .expect(204)
+    }
     await request(fixture.testApp.app)
       .delete(fixture.planPath)
       .set('Cookie', fixture.cookies.editor)

@@ -64,16 +64,24 @@ describe('clip power from a datasheet point', () => {
     expect(outputResistanceOhm(100, 4, 21, true)).toEqual({ outputResistanceOhm: 0, clamped: true })
   })
 
-  it('takes about 1 dB off a 10 % THD rating', () => {
-    // Source: engine.md §4 (from memory): a 10 % THD rating is roughly 1 dB above the clean figure
+  it('takes about 1 dB off a 10 % THD rating, and takes 10 % when none is given', () => {
+    // Source: from memory: a 10 % THD rating is roughly 1 dB above the clean figure; common
+    // practice: a board's headline power is usually its 10 % THD figure
     expect(ratingExcessDb(1)).toBe(0)
     expect(ratingExcessDb(10)).toBe(1)
     expect(ratingExcessDb(0.1)).toBe(0)
-    const clean = estimate(columnRig())
+    const clean = estimate(
+      variant(columnRig(), { amplifier: { ...columnRig().amplifier, ratedThdPct: 1 } }),
+    )
     const loose = estimate(
       variant(columnRig(), { amplifier: { ...columnRig().amplifier, ratedThdPct: 10 } }),
     )
     expect(10 * Math.log10(clean.clipPowerW.full / loose.clipPowerW.full)).toBeGreaterThan(0.5)
+    const unsaid = estimate(columnRig())
+    expect(unsaid.clipPowerW.full).toBe(loose.clipPowerW.full)
+    expect(unsaid.assumed).toContainEqual(
+      expect.objectContaining({ field: 'amplifier.ratedThdPct', value: 10 }),
+    )
   })
 
   it('loses clip power as the pack sags to cutoff', () => {
@@ -96,6 +104,7 @@ describe('supply draw by class', () => {
     idleCurrentA: ampClass === 'a' ? 0 : 0.05,
     biasCurrentA: ampClass === 'a' ? classABiasCurrentA(10, 12, 0.25) : 0,
     lockoutV: null,
+    bulkCapacitanceF: 0,
   })
 
   it('class D draws P_out/η + V_s·I_idle', () => {

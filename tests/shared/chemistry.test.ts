@@ -55,9 +55,21 @@ describe('chemistry tables', () => {
   })
 
   it('defaults a 2.5 Ah li-ion cell to about 30 mΩ and uses Peukert k 1.2 for lead-acid', () => {
-    // Source: from memory: 18650 power cells measure 20–40 mΩ DC; engine.md §1: lead-acid k 1.1–1.3
+    // Source: from memory: 18650 power cells measure 20–40 mΩ DC; lead-acid k 1.1–1.3 (common
+    // practice). Lithium gets no Peukert on top of its I·R sag (makers' curves lose only 1–3 %
+    // at 1 C beyond it, from memory), but a small rate loss instead.
     expect(defaultCellResistanceOhm('li-ion', 2.5)).toBeCloseTo(0.03, 6)
     expect(CHEMISTRY_DATA['lead-acid'].peukertExponent).toBe(1.2)
-    expect(CHEMISTRY_DATA['li-ion'].peukertExponent).toBe(1.05)
+    expect(CHEMISTRY_DATA['li-ion'].peukertExponent).toBe(1)
+    expect(CHEMISTRY_DATA['li-ion'].rateLossPerC).toBe(0.02)
+  })
+
+  it("checks maximum voltages against the charger's end voltage per cell", () => {
+    // Source: common practice charge end voltages: 4.20 V li-ion, 3.65 V LiFePO4, 2.45 V lead-acid
+    // (14.7 V for a 12 V AGM), 1.45 V NiMH
+    expect(CHEMISTRY_DATA['li-ion'].chargedCellV).toBe(4.2)
+    expect(CHEMISTRY_DATA.lifepo4.chargedCellV).toBe(3.65)
+    expect(CHEMISTRY_DATA['lead-acid'].chargedCellV).toBe(2.45)
+    expect(CHEMISTRY_DATA.nimh.chargedCellV).toBe(1.45)
   })
 })

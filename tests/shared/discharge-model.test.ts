@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest'
 import {
+  calibrateFromLog,
   dischargeLimitsOf,
   modelConstantCurrentDischarge,
 } from '../../shared/engine/discharge-model'
@@ -69,5 +70,78 @@ describe('the model under a constant current', () => {
 
   it('draws nothing for no current', () => {
     expect(modelConstantCurrentDischarge(toolPack, 0).points).toEqual([])
+  })
+})
+
+describe('health from a measured log', () => {
+  // A 12 V 7 Ah AGM block rated at the 20-hour rate (C20, 0.35 A), Peukert k = 1.2, cut low so
+  // that the run ends when the charge is gone (a datasheet-style block; values common practice).
+  const block: PackSpec = {
+    chemistry: 'lead-acid',
+    seriesCells: 6,
+    parallelCells: 1,
+    cellCapacityAh: 7,
+    cellResistanceOhm: 0.004,
+    cutoffCellV: 1.5,
+    peukertExponent: 1.2,
+  }
+  const cutoffV = 9
+
+  it('is delivered Ah over rated Ah for a log at the rated current', () => {
+    // Source: state of health = capacity now ÷ capacity new under the rated conditions (the
+    // usual definition, e.g. IEEE 1188 for VRLA capacity tests); at the C20 current Peukert's
+    // law gives the label's 7 Ah. 5.6 Ah of 7 is 80 %.
+    const calibration = calibrateFromLog(block, {
+      deliveredAh: 5.6,
+      averageCurrentA: 0.35,
+      cutoffV,
+    })
+    expect(calibration?.newPackAh).toBeCloseTo(7, 6)
+    expect(calibration?.healthPct).toBeCloseTo(80, 4)
+  })
+
+  it('measures against a new pack at the same current, not against the label', () => {
+    // Source: Peukert's law t = H·(C/(I·H))^k (Peukert 1897): a new 7 Ah C20 block at 2 A runs
+    // 20 × (7/40)^1.2 h ≈ 2.45 h, i.e. 4.90 Ah. A log of 3.92 Ah at 2 A is 80 % of that,
+    // where the label ratio (56 %) would count the rate loss a second time.
+    const newAh = 2 * 20 * (7 / (2 * 20)) ** 1.2
+    const calibration = calibrateFromLog(block, {
+      deliveredAh: 0.8 * newAh,
+      averageCurrentA: 2,
+      cutoffV,
+    })
+    expect(calibration?.newPackAh).toBeCloseTo(newAh, 6)
+    expect(calibration?.healthPct).toBeCloseTo(80, 4)
+  })
+
+  it('reproduces its own log once applied: a 5S2P tool pack logging 3.83 Ah at 2 A', () => {
+    // Common practice: a "20 V max" pack is 5 li-ion cells in series; 2 × 2 Ah cells in parallel
+    // is 4 Ah rated; 3.83 Ah measured to a 15 V cutoff at 0.5 C. Once its health is applied, the
+    // model at the log's own current must give the log's Ah back (within 3 %), not 3.65 Ah.
+    const tool: PackSpec = {
+      chemistry: 'li-ion',
+      seriesCells: 5,
+      parallelCells: 2,
+      cellCapacityAh: 2,
+    }
+    const log = { deliveredAh: 3.83, averageCurrentA: 2, cutoffV: 15 }
+    const calibration = calibrateFromLog(tool, log)!
+    // The rate loss of the run is in the model, so the health is above the label ratio 3.83 / 4.
+    expect(calibration.healthPct).toBeGreaterThan((100 * 3.83) / 4)
+    const applied = modelConstantCurrentDischarge(
+      { ...tool, healthPct: Math.round(calibration.healthPct * 10) / 10 },
+      2,
+    )
+    expect(Math.abs(applied.deliveredAh - 3.83) / 3.83).toBeLessThan(0.03)
+    expect(Math.abs(calibration.calibratedAh - 3.83)).toBeLessThan(1e-5)
+  })
+
+  it('gives no figure when a new pack cannot deliver at that current', () => {
+    // Ohm's law: 1 Ω of pack at 10 A sags 10 V, below a 12 V block's 9 V cutoff at once.
+    const calibration = calibrateFromLog(
+      { ...block, cellResistanceOhm: 1 / 6 },
+      { deliveredAh: 1, averageCurrentA: 10, cutoffV },
+    )
+    expect(calibration).toBeUndefined()
   })
 })

@@ -58,6 +58,38 @@ describe('internal resistance from load steps', () => {
     expect(result.resistanceSteps).toBe(9)
   })
 
+  it('recovers R from a log stepping 1 A ↔ 4 A every five minutes, sampled once a minute', () => {
+    // Thevenin model V = OCV − I·R (any circuit theory text) with an OCV that falls in proportion
+    // to the charge drawn (so it falls four times as fast at 4 A): a 0.12 Ω pack. The current
+    // changes midway between two samples, as a logger writing once a minute sees it; the
+    // discharge between those samples must not be read as I·R.
+    const resistanceOhm = 0.12
+    const voltsPerAh = 2 // OCV slope of a 5 Ah, 10 V-swing pack, linear: an invented test pack
+    const switchS = (timeS: number) => Math.floor((timeS - 30) / 300)
+    const currentAt = (timeS: number) => (timeS < 30 || switchS(timeS) % 2 === 1 ? 1 : 4)
+    const samples: DischargeSample[] = []
+    let chargeAh = 0
+    for (let timeS = 0; timeS <= 3600; timeS += 60) {
+      if (timeS > 0) {
+        // Exact charge over the minute: the current switches at 30 s past a multiple of 300 s.
+        for (let second = timeS - 60; second < timeS; second += 1) {
+          chargeAh += currentAt(second + 0.5) / 3600
+        }
+      }
+      const currentA = currentAt(timeS)
+      samples.push({
+        timeS,
+        voltageV: 41 - voltsPerAh * chargeAh - currentA * resistanceOhm,
+        currentA,
+      })
+    }
+    const result = analyseDischarge(samples, { cutoffV: 30, ratedAh: 5 })
+    expect(result.resistanceOhm).toBeDefined()
+    expect(result.resistanceOhm!).toBeCloseTo(resistanceOhm, 4)
+    // Steps at 30, 330, 630, …, 3330 s: twelve of them in the hour.
+    expect(result.resistanceSteps).toBe(12)
+  })
+
   it('gives no resistance for a log without load steps', () => {
     const log = constantCurrentSamples({
       currentA: 3,

@@ -13,10 +13,13 @@ describe('energy and airline class', () => {
   it('classes packs at 100 and 160 Wh', () => {
     // Source: IATA Dangerous Goods Regulations, lithium batteries: ≤ 100 Wh; > 100 Wh and
     // ≤ 160 Wh with airline approval; > 160 Wh not in passenger baggage
-    expect(airlineClass(100)).toBe('up-to-100wh')
-    expect(airlineClass(100.01)).toBe('100-to-160wh')
-    expect(airlineClass(160)).toBe('100-to-160wh')
-    expect(airlineClass(160.01)).toBe('over-160wh')
+    expect(airlineClass(100, true)).toBe('up-to-100wh')
+    expect(airlineClass(100.01, true)).toBe('100-to-160wh')
+    expect(airlineClass(160, true)).toBe('100-to-160wh')
+    expect(airlineClass(160.01, true)).toBe('over-160wh')
+    // The same DGR Wh limits are the lithium battery rules: other chemistries get no Wh class.
+    expect(airlineClass(50, false)).toBe('not-lithium')
+    expect(airlineClass(500, false)).toBe('not-lithium')
   })
 
   it('warns about approval for a 108 Wh pack and refusal for a 180 Wh pack', () => {

@@ -186,6 +186,12 @@ describe('the built-in library', () => {
       const result = estimate(example.rig)
       expect(result.runtimeHours, example.id).toBeGreaterThan(1)
       for (const converter of result.converters) expect(converter.fits, converter.label).toBe(true)
+      // ours: a demo rig shows a safe build, so nothing in it is a danger
+      const dangers = result.warnings.filter((warning) => warning.severity === 'danger')
+      expect(
+        dangers.map((warning) => warning.code),
+        example.id,
+      ).toEqual([])
     }
   })
 })

@@ -238,3 +238,82 @@ describe('engine properties', { timeout: 30_000 }, () => {
     )
   })
 })
+
+const withLead = (request: EstimateRequest, awg: number, lengthM: number): EstimateRequest => ({
+  ...request,
+  leads: { awg, lengthM },
+})
+
+describe('peak and loudness properties', { timeout: 60_000 }, () => {
+  it('never raises the lowest supply at peaks with a thinner or longer lead', () => {
+    // Source: Ohm's law: more lead resistance drops more voltage at any current drawn
+    fc.assert(
+      fc.property(
+        requestArbitrary,
+        fc.integer({ min: 10, max: 24 }),
+        fc.integer({ min: 1, max: 6 }),
+        fc.double({ min: 0.2, max: 5, noNaN: true }),
+        fc.double({ min: 1, max: 3, noNaN: true }),
+        (request, awg, thinnerBy, lengthM, longerBy) => {
+          const base = estimate(withLead(request, awg, lengthM)).minPeakSupplyV
+          const thinner = estimate(withLead(request, awg + thinnerBy, lengthM)).minPeakSupplyV
+          const longer = estimate(withLead(request, awg, lengthM * longerBy)).minPeakSupplyV
+          expect(thinner).toBeLessThanOrEqual(base + 1e-6)
+          expect(longer).toBeLessThanOrEqual(base + 1e-6)
+        },
+      ),
+      { ...params, numRuns: 40 },
+    )
+  })
+
+  it('never lowers the peak current at a higher level', () => {
+    // Source: the supply power of every class rises (or, class A, stays) with the output
+    fc.assert(
+      fc.property(
+        requestArbitrary,
+        fc.double({ min: 0.5, max: 12, noNaN: true }),
+        (request, db) => {
+          expect(estimate(louder(request, db)).peakCurrentA).toBeGreaterThanOrEqual(
+            estimate(request).peakCurrentA - 1e-6,
+          )
+        },
+      ),
+      { ...params, numRuns: 40 },
+    )
+  })
+
+  it('never reads quieter with more drivers facing the listener', () => {
+    // Source: power summation: adding sources adds power, so the level cannot fall
+    fc.assert(
+      fc.property(requestArbitrary, fc.integer({ min: 1, max: 64 }), (request, facing) => {
+        const total =
+          request.speakers.parallel * request.speakers.banks * request.amplifier.channels
+        const fewer = Math.min(facing, total)
+        const more = Math.min(fewer + 1, total)
+        const at = (count: number) =>
+          estimate({ ...request, speakers: { ...request.speakers, facingListener: count } }).splDb
+        const quiet = at(fewer)
+        const loud = at(more)
+        if (!quiet || !loud) return
+        expect(loud.average).toBeGreaterThanOrEqual(quiet.average - 1e-9)
+        expect(loud.peak).toBeGreaterThanOrEqual(loud.average - 1e-9)
+      }),
+      { ...params, numRuns: 40 },
+    )
+  })
+
+  it('never flags a dropout without a warning that says so, nor the reverse', () => {
+    // Source: the product's promise: a risk the result reports is always explained to the user
+    fc.assert(
+      fc.property(requestArbitrary, (request) => {
+        const result = estimate(request)
+        const warned = result.warnings.some(
+          (warning) => warning.code === 'dropout-risk' || warning.code === 'dropout-near-empty',
+        )
+        expect(warned).toBe(result.dropoutRisk)
+        expect(result.minPeakSupplyV).toBeLessThanOrEqual(result.minPeakTerminalV + 1e-9)
+      }),
+      params,
+    )
+  })
+})

@@ -169,3 +169,21 @@ describe('estimate result schema', () => {
     expect(estimateResultSchema.parse(result)).toEqual(result)
   })
 })
+
+describe('drivers facing the listener', () => {
+  it('refuses more than the rig has, naming the field', () => {
+    // Source: docs/estimate-api.md: facingListener counts drivers of all channels, so 2 channels
+    // of 3 × 2 drivers are 12 at most.
+    const rig = columnRig()
+    const result = estimateRequestSchema.safeParse({
+      ...rig,
+      speakers: { ...rig.speakers, facingListener: 13 },
+    })
+    expect(result.success).toBe(false)
+    expect(result.error!.issues.map((issue) => issue.path.join('.'))).toEqual([
+      'speakers.facingListener',
+    ])
+    const twelve = { ...rig, speakers: { ...rig.speakers, facingListener: 12 } }
+    expect(estimateRequestSchema.safeParse(twelve).success).toBe(true)
+  })
+})

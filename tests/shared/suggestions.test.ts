@@ -66,6 +66,29 @@ describe('fix suggestions', () => {
     }
   })
 
+  it('never offers a larger pack that does not fit the rig', () => {
+    // Source: product cautions: a pack's maximum continuous discharge is not to be exceeded
+    // (makers' datasheets). A 4P pack rated for 0.5 A would carry the day but the rig draws
+    // more than that on average, so the next pack that fits (5P, rated 40 A) is offered instead.
+    const candidates = [
+      { parallelCells: 4, maxDischargeA: 0.5 },
+      { parallelCells: 5, maxDischargeA: 40 },
+    ].map(({ parallelCells, maxDischargeA }) =>
+      packSchema.parse({
+        chemistry: 'li-ion',
+        seriesCells: 5,
+        parallelCells,
+        cellCapacityAh: 2.5,
+        maxDischargeA,
+        label: `${parallelCells}P`,
+      }),
+    )
+    const tooWeak = applyPatch(shortDay, { pack: { ...candidates[0]!, count: 1 } })
+    expect(lasts(tooWeak)).toBe(true)
+    expect(estimate(tooWeak).warnings.some((warning) => warning.severity === 'danger')).toBe(true)
+    expect(suggestFixes(shortDay, candidates).largerPack?.label).toBe('5P')
+  })
+
   it('suggests nothing when the plan lasts', () => {
     // Source: ours: nothing to fix
     const fixes = suggestFixes(variant(shortDay, { pack: { ...shortDay.pack, count: 4 } }))

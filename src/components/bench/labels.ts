@@ -1,4 +1,5 @@
 // Plain words for the engine's codes, in the bench's own voice.
+import type { Chemistry } from '../../../shared/engine'
 import type {
   AirlineClass,
   AmplifierSpec,
@@ -44,4 +45,13 @@ export const airlineClassText: Record<AirlineClass, string> = {
   'up-to-100wh': 'Up to 100 Wh: allowed in carry-on baggage',
   '100-to-160wh': '100 to 160 Wh: only with the airline’s approval',
   'over-160wh': 'Over 160 Wh: not allowed in passenger baggage',
+  'not-lithium': 'Not lithium: the Wh limits for lithium do not apply; ask the airline',
+}
+
+/** Chemistries in words, as the trade says them (never the codes). */
+export const chemistryNames: Record<Chemistry, string> = {
+  'li-ion': 'Lithium-ion',
+  lifepo4: 'LiFePO4',
+  'lead-acid': 'Lead-acid (AGM/gel)',
+  nimh: 'NiMH',
 }
