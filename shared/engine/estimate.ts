@@ -40,6 +40,10 @@ import { equivalentLevelDb, nioshPermittedMinutes, soundLevelDb, WHO_VENUE_LAEQ_
 import { driversPerChannel, loadOhm } from './speakers'
 import { dropoutOnset } from './dropout'
 import { ENGINE_VERSION } from './version'
+import { reserveShortfall, reserveWarning } from './reserve'
+import { listenerLevelDb, segmentResults } from './segment-levels'
+import type { SpeakerLeadsModel } from './speaker-leads'
+import { speakerLeadsModel } from './speaker-leads'
 import { collectWarnings } from './warnings'
 
 /** Everything fixed for a run: built once per request, shared by estimate, compare and fixes. */
@@ -53,6 +57,9 @@ export interface PreparedRig {
   programmeSegment: RunSegment
   openEnded: boolean
   outputResistanceClamped: boolean
+  /** The speakers' own load per channel, without the speaker leads. */
+  speakerLoadOhm: number
+  speakerLeads: SpeakerLeadsModel
 }
 
 export function prepareRig(request: EstimateRequest): PreparedRig {
@@ -60,7 +67,10 @@ export function prepareRig(request: EstimateRequest): PreparedRig {
   const temperatureC = resolved.temperatureC
   const pack = buildPack(resolved.pack, temperatureC)
   const leadOhm = resolved.leads ? leadResistanceOhm(resolved.leads, temperatureC) : 0
-  const channelLoadOhm = loadOhm(resolved.speakers)
+  const speakerLoadOhm = loadOhm(resolved.speakers)
+  const speakerLeads = speakerLeadsModel(resolved.speakerLeads, speakerLoadOhm, temperatureC)
+  // The amplifier drives the speaker leads and the speakers in series.
+  const channelLoadOhm = speakerLoadOhm + speakerLeads.resistanceOhm
   const amp = resolved.amplifier
   // engine.md §4: a rating at 10 % THD is about 1 dB above the clean figure
   const cleanRatedPowerW = amp.ratedPowerW * 10 ** (-ratingExcessDb(amp.ratedThdPct) / 10)
@@ -129,12 +139,14 @@ export function prepareRig(request: EstimateRequest): PreparedRig {
     meanToRms: meanToRmsRatio(segment.crestFactorDb),
     headroomPeakW:
       segment.state === 'on' ? peakPowerW(referenceClipW, segment.peakBelowClipDb) : programmePeakW,
+    chargeW: segment.chargeW,
   })
   const programmeSegment = toRunSegment({
     label: 'programme',
     minutes: OPEN_RUN_LIMIT_MINUTES,
     state: 'on',
     ...resolved.programme,
+    chargeW: 0,
   })
   const segments = resolved.schedule ? resolved.schedule.map(toRunSegment) : [programmeSegment]
   return {
@@ -146,6 +158,8 @@ export function prepareRig(request: EstimateRequest): PreparedRig {
     programmeSegment,
     openEnded: resolved.schedule === null,
     outputResistanceClamped: output.clamped,
+    speakerLoadOhm,
+    speakerLeads,
   }
 }
 
@@ -271,17 +285,11 @@ export function summarise(prepared: PreparedRig, outcome: RunOutcome): EstimateR
   // Sound at the listener (engine.md §8), from the loudest segment.
   const speakers = resolved.speakers
   const drivers = driversPerChannel(speakers)
+  const speakerShare = prepared.speakerLeads.speakerShare
   let splDb: EstimateResult['splDb']
   let exposure: EstimateResult['exposure']
   if (speakers.sensitivityDb !== null && loudest) {
-    const levelAt = (channelPowerW: number) =>
-      soundLevelDb(
-        speakers.sensitivityDb!,
-        channelPowerW / drivers,
-        speakers.facingListener,
-        resolved.listenerDistanceM,
-        resolved.boundaryGainDb,
-      )
+    const levelAt = (channelPowerW: number) => listenerLevelDb(prepared, channelPowerW)!
     const average = equivalentLevelDb(levelAt(loudest.outputPerChannelW), loudest.playingShare)
     splDb = { average, peak: levelAt(loudest.peakPerChannelW) }
     let dosePct: number | undefined
@@ -319,6 +327,9 @@ export function summarise(prepared: PreparedRig, outcome: RunOutcome): EstimateR
         swaps: outcome.swaps,
         totalMinutes,
         stoppedAtMinute: lasts ? null : outcome.elapsedS / 60,
+        segments: segmentResults(prepared, outcome),
+        endSocPct: outcome.endSoc * 100,
+        sparePacks: resolved.pack.count - outcome.packsUsed,
       }
     : undefined
   // Nothing played: no headroom figure to give, 0 keeps the result finite.
@@ -330,7 +341,7 @@ export function summarise(prepared: PreparedRig, outcome: RunOutcome): EstimateR
     chemistry: pack.chemistry,
     temperatureC: resolved.temperatureC,
     capacityFactor: capacityTemperatureFactor(pack.chemistry, resolved.temperatureC),
-    loadOhm: amplifier.loadOhm,
+    loadOhm: prepared.speakerLoadOhm,
     minLoadOhm: resolved.amplifier.minLoadOhm,
     fullPackV: fullOpenCircuitV,
     cutoffSupplyV: cutoffLeadSupplyV,
@@ -364,6 +375,8 @@ export function summarise(prepared: PreparedRig, outcome: RunOutcome): EstimateR
     nominalWh: nominalPackWh,
     airlineClass: packClass,
   })
+  const reserve = reserveShortfall(prepared, outcome)
+  if (reserve) warnings.push(reserveWarning(reserve))
 
   const massKg = resolved.pack.massKg
   return {
@@ -372,7 +385,7 @@ export function summarise(prepared: PreparedRig, outcome: RunOutcome): EstimateR
     stopReason: outcome.stopReason,
     musicHours: outcome.musicS / 3600,
     averageDrawW: perSecond(outcome.deliveredJ, outcome.poweredS),
-    loadOhm: amplifier.loadOhm,
+    loadOhm: prepared.speakerLoadOhm,
     leadResistanceOhm: rig.leadOhm,
     energyWh: {
       nominal: nominalPackWh,
@@ -402,6 +415,10 @@ export function summarise(prepared: PreparedRig, outcome: RunOutcome): EstimateR
     warnings,
     timeline,
     ...(scheduleResult ? { schedule: scheduleResult } : {}),
+    speakerLeads: {
+      resistanceOhm: prepared.speakerLeads.resistanceOhm,
+      lossPct: prepared.speakerLeads.lossPct,
+    },
     pack: {
       ...(resolved.pack.label === undefined ? {} : { label: resolved.pack.label }),
       nominalV: pack.nominalV,
@@ -421,11 +438,11 @@ export function summarise(prepared: PreparedRig, outcome: RunOutcome): EstimateR
       averageOutputW: perSecond(outcome.ampOutputJ, outcome.musicS),
     },
     speakers: {
-      loadOhm: amplifier.loadOhm,
+      loadOhm: prepared.speakerLoadOhm,
       driversPerChannel: drivers,
       powerPerDriverW: {
-        average: loudest ? loudest.outputPerChannelW / drivers : 0,
-        peak: loudest ? loudest.peakPerChannelW / drivers : 0,
+        average: loudest ? (loudest.outputPerChannelW * speakerShare) / drivers : 0,
+        peak: loudest ? (loudest.peakPerChannelW * speakerShare) / drivers : 0,
       },
     },
     leads: {

@@ -30,6 +30,8 @@ export interface ResolvedSegment {
   peakBelowClipDb: number
   crestFactorDb: number
   playingPct: number
+  /** Power into the pack in a 'charging' segment; 0 in the others. */
+  chargeW: number
 }
 
 export interface ResolvedRequest {
@@ -42,6 +44,8 @@ export interface ResolvedRequest {
     price?: number | undefined
   }
   leads: LeadInputs | null
+  /** Per channel, amplifier to speakers; no connector allowance (speaker terminals, not a fuse). */
+  speakerLeads: LeadInputs | null
   amplifier: {
     ampClass: AmplifierClass
     bridged: boolean
@@ -154,6 +158,13 @@ export function resolveRequest(request: EstimateRequest): {
           ),
         }
       : null,
+    speakerLeads: request.speakerLeads
+      ? {
+          areaMm2: leadAreaMm2(request.speakerLeads),
+          lengthM: request.speakerLeads.lengthM,
+          connectorOhm: 0,
+        }
+      : null,
     amplifier: {
       ampClass: amplifierClass,
       bridged: amplifier.bridged,
@@ -262,6 +273,7 @@ export function resolveRequest(request: EstimateRequest): {
           peakBelowClipDb: segment.peakBelowClipDb ?? resolvedProgramme.peakBelowClipDb,
           crestFactorDb: segment.crestFactorDb ?? resolvedProgramme.crestFactorDb,
           playingPct: segment.playingPct ?? resolvedProgramme.playingPct,
+          chargeW: segment.state === 'charging' ? (segment.chargeW ?? 0) : 0,
         }))
       : null,
     temperatureC: pick(
