@@ -36,7 +36,7 @@ import {
   runRig,
   solveOperatingPoint,
 } from './run'
-import { equivalentLevelDb, nioshPermittedMinutes, soundLevelDb, WHO_VENUE_LAEQ_DB } from './sound'
+import { equivalentLevelDb, nioshPermittedMinutes, WHO_VENUE_LAEQ_DB } from './sound'
 import { driversPerChannel, loadOhm } from './speakers'
 import { dropoutOnset } from './dropout'
 import { ENGINE_VERSION } from './version'

@@ -78,15 +78,12 @@ export function reserveShortfall(
 }
 
 export function reserveWarning(shortfall: ReserveShortfall): EstimateWarning {
-  const quieter =
+  const fix =
     shortfall.quieterDb === null
-      ? ' Playing quieter alone will not do it: the idle and accessory draw use most of the pack.'
-      : `, or play ${shortfall.quieterDb} dB quieter throughout`
-  const end = `The day lasts, but the last pack ends at about ${Math.round(shortfall.endSocPct)} % with no spare left, under the ${RESERVE_FLOOR_PCT} % reserve a colder day or an older pack would eat`
+      ? 'Bring one more charged pack; playing quieter alone will not do it, as the idle and accessory draw use most of the pack.'
+      : `Bring one more charged pack, or play ${shortfall.quieterDb} dB quieter throughout.`
   return warning(
     'reserve-low',
-    shortfall.quieterDb === null
-      ? `${end}: bring one more charged pack.${quieter}`
-      : `${end}: bring one more charged pack${quieter}.`,
+    `The day lasts, but the last pack ends at about ${Math.round(shortfall.endSocPct)} % with no spare left, under the ${RESERVE_FLOOR_PCT} % worth keeping for a colder day or an older pack. ${fix}`,
   )
 }

@@ -402,19 +402,13 @@ export function runRig(
       const openV = packOpenCircuitV(pack, at.soc)
       const gainedAs = chargeAh(segment.chargeW, openV, stepS / 60, at.chargeAs / 3600) * 3600
       const currentA = gainedAs / stepS
-      // At the terminals a charging pack sits above its open-circuit voltage by I·R.
+      // At the terminals a charging pack sits above its open-circuit voltage by I·R; the draw
+      // shown is minus the power stored, chargeW until the pack is full.
       const terminalV = openV + currentA * pack.resistanceOhm
       if (timeline && (at.forceNextSample || stepCount % timeline.stride === 0)) {
         const forced = at.forceNextSample
         at.forceNextSample = false
-        sample(
-          terminalV,
-          -terminalV * currentA,
-          terminalV,
-          'charging',
-          segment.headroomPeakW,
-          forced,
-        )
+        sample(terminalV, -openV * currentA, terminalV, 'charging', segment.headroomPeakW, forced)
       }
       stepCount++
       totals.chargedJ += openV * gainedAs

@@ -428,7 +428,7 @@ export const timelinePointSchema = z.object({
   socPct: finite,
   /** Pack terminal voltage under the load at that moment. */
   voltageV: finite,
-  /** Power out of the pack terminals. */
+  /** Power out of the pack terminals; while charging, minus the power stored in the pack. */
   drawW: finite,
   /** Clip power over the programme's peak power (of the segment, or the request's programme). */
   headroomDb: finite,
