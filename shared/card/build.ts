@@ -6,7 +6,7 @@ import type { EstimateRequest, EstimateResult, ScheduleSegment } from '../schema
 import { CARD_DISCLAIMER, cardCautions } from './cautions'
 import { dateWords, distanceWords, durationWords, figure, plural, temperatureWords } from './format'
 import type { CardSegment, CardSwap, CardWarning, RuntimeCard } from './model'
-import { meterDistanceM, meterLine, meterNote } from './meter'
+import { meterLine, meterNote } from './meter'
 import { packLine, rigLine } from './rig-line'
 
 export interface CardEvent {
@@ -84,7 +84,7 @@ function segmentsOf(
       endLabel: label(startMinute + segment.minutes),
       label: segment.label,
       activity: activityOf(segment, request),
-      meter: meterLine(levels[index], meterDistanceM(request)),
+      meter: meterLine(levels[index]),
     }
     startMinute += segment.minutes
     return row

@@ -9,10 +9,13 @@ export function meterDistanceM(request: EstimateRequest): number {
   return request.listenerDistanceM ?? DEFAULT_LISTENER_DISTANCE_M
 }
 
-/** "Meter about 94 dBA at 3 m (10 ft)" for a segment with music; null for a silent one. */
-export function meterLine(segment: SegmentResult | undefined, distanceM: number): string | null {
+/**
+ * "Meter about 94 dBA" for a segment with music; null for a silent one. The distance it holds at
+ * is said once, in the meter note.
+ */
+export function meterLine(segment: SegmentResult | undefined): string | null {
   if (segment?.playingSplDb === undefined) return null
-  return `Meter about ${Math.round(segment.playingSplDb)} dBA at ${distanceWords(distanceM)}`
+  return `Meter about ${Math.round(segment.playingSplDb)} dBA`
 }
 
 /**
