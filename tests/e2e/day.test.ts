@@ -1,24 +1,24 @@
-import { beforeAll, describe, expect, it } from 'vitest'
-import { submitSignIn, useAppUnderTest } from '../helpers/e2e-app'
+import { describe, expect, it } from 'vitest'
+import { signInBeforeAll, useAppUnderTest } from '../helpers/e2e-app'
 
 // The whole day in Chromium, on the demo seed: a charging break in the plan editor, each
 // segment's level in its table, and the meter readings on the runtime card.
 
 const app = useAppUnderTest()
-beforeAll(async () => {
+signInBeforeAll(app, 'editor@alder-creek.example')
+
+async function openSaturdayMarket(): Promise<void> {
   const { page } = app.browser
-  await page.goto(`${app.server.url}/sign-in`)
-  await submitSignIn(page, 'editor@alder-creek.example')
-  await page.waitForURL((url) => !url.pathname.startsWith('/sign-in'))
-})
+  await page.goto(`${app.server.url}/plans`)
+  await page.getByRole('link', { name: 'Saturday market' }).click()
+  await page.waitForURL(/\/plans\/\d+$/)
+  await page.getByTestId('plan-lasts').waitFor()
+}
 
 describe('the whole day', () => {
   it('adds a charging break to a plan and shows each segment’s level', async () => {
     const { page } = app.browser
-    await page.goto(`${app.server.url}/plans`)
-    await page.getByRole('link', { name: 'Saturday market' }).click()
-    await page.waitForURL(/\/plans\/\d+$/)
-    await page.getByTestId('plan-lasts').waitFor()
+    await openSaturdayMarket()
 
     // The lunch segment (the fourth) becomes a charging break on a 40 W car charger.
     const lunch = page.getByTestId('segment-3')
@@ -44,9 +44,7 @@ describe('the whole day', () => {
 
   it('puts the meter reading of each music segment on the runtime card', async () => {
     const { page } = app.browser
-    await page.goto(`${app.server.url}/plans`)
-    await page.getByRole('link', { name: 'Saturday market' }).click()
-    await page.waitForURL(/\/plans\/\d+$/)
+    await openSaturdayMarket()
     await page.getByTestId('plan-card-link').click()
     const card = page.getByTestId('runtime-card')
     await card.waitFor()
