@@ -6,6 +6,7 @@ import type { EstimateRequest, EstimateResult, ScheduleSegment } from '../schema
 import { CARD_DISCLAIMER, cardCautions } from './cautions'
 import { dateWords, distanceWords, durationWords, figure, plural, temperatureWords } from './format'
 import type { CardSegment, CardSwap, CardWarning, RuntimeCard } from './model'
+import { meterLine, meterNote } from './meter'
 import { packLine, rigLine } from './rig-line'
 
 export interface CardEvent {
@@ -60,20 +61,30 @@ function activityOf(segment: ScheduleSegment, request: EstimateRequest): string 
   const state = segment.state ?? 'on'
   if (state === 'off') return 'Rig switched off'
   if (state === 'idle') return 'Rig on, no music'
+  if (state === 'charging') {
+    const power = segment.chargeW === undefined ? '' : ` (${figure(segment.chargeW, 0)} W into it)`
+    return `Rig silent; its pack on the charger${power}`
+  }
   const playingPct = segment.playingPct ?? request.programme.playingPct
   const peakBelowClipDb = segment.peakBelowClipDb ?? request.programme.peakBelowClipDb
   const playing = playingPct === undefined ? '' : ` ${figure(playingPct, 0)} % of the time;`
   return `Sound${playing} peaks ${figure(peakBelowClipDb)} dB below clipping`
 }
 
-function segmentsOf(request: EstimateRequest, label: MinuteLabel): CardSegment[] {
+function segmentsOf(
+  request: EstimateRequest,
+  result: EstimateResult,
+  label: MinuteLabel,
+): CardSegment[] {
   let startMinute = 0
-  return (request.schedule ?? []).map((segment) => {
+  const levels = result.schedule?.segments ?? []
+  return (request.schedule ?? []).map((segment, index) => {
     const row = {
       startLabel: label(startMinute),
       endLabel: label(startMinute + segment.minutes),
       label: segment.label,
       activity: activityOf(segment, request),
+      meter: meterLine(levels[index]),
     }
     startMinute += segment.minutes
     return row
@@ -201,7 +212,8 @@ export function buildRuntimeCard(source: CardSource): RuntimeCard {
     packs: packsOf(request, result),
     swaps: swapsOf(result, label),
     noSwapNote: noSwapNoteOf(result),
-    segments: segmentsOf(request, label),
+    segments: segmentsOf(request, result, label),
+    meterNote: meterNote(request, result),
     sound: soundOf(request, result),
     warnings: keyWarnings(result),
     cautions: cardCautions(request, result),

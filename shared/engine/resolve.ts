@@ -32,6 +32,8 @@ export interface ResolvedSegment {
   peakBelowClipDb: number
   crestFactorDb: number
   playingPct: number
+  /** Power into the pack in a 'charging' segment; 0 in the others. */
+  chargeW: number
 }
 
 export interface ResolvedRequest {
@@ -44,6 +46,8 @@ export interface ResolvedRequest {
     price?: number | undefined
   }
   leads: LeadInputs | null
+  /** Per channel, amplifier to speakers; no connector allowance (speaker terminals, not a fuse). */
+  speakerLeads: LeadInputs | null
   amplifier: {
     ampClass: AmplifierClass
     bridged: boolean
@@ -205,6 +209,13 @@ export function resolveRequest(request: EstimateRequest): {
           ),
         }
       : null,
+    speakerLeads: request.speakerLeads
+      ? {
+          areaMm2: leadAreaMm2(request.speakerLeads),
+          lengthM: request.speakerLeads.lengthM,
+          connectorOhm: 0,
+        }
+      : null,
     amplifier: {
       ampClass: amplifierClass,
       bridged: amplifier.bridged,
@@ -318,6 +329,7 @@ export function resolveRequest(request: EstimateRequest): {
           peakBelowClipDb: segment.peakBelowClipDb ?? resolvedProgramme.peakBelowClipDb,
           crestFactorDb: segment.crestFactorDb ?? resolvedProgramme.crestFactorDb,
           playingPct: segment.playingPct ?? resolvedProgramme.playingPct,
+          chargeW: segment.state === 'charging' ? (segment.chargeW ?? 0) : 0,
         }))
       : null,
     temperatureC: pick(

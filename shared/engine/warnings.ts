@@ -122,6 +122,10 @@ export const WARNING_CATALOGUE = {
     severity: 'danger',
     meaning: 'The packs on hand do not last the schedule.',
   },
+  'reserve-low': {
+    severity: 'caution',
+    meaning: 'The day lasts but ends below 20 % in the last pack, with no spare left.',
+  },
   'runtime-limit': {
     severity: 'info',
     meaning: 'The run without a schedule reached the 7-day limit of simulated time.',

@@ -9,6 +9,7 @@ import {
   type LeadsSpec,
   type PackSpec,
   type ProgrammeSpec,
+  type SpeakerLeadsSpec,
   type SpeakersSpec,
 } from '../../shared/schemas/estimate'
 
@@ -18,10 +19,11 @@ type Editable<T> = { [K in keyof T]?: T[K] | undefined }
 /** The rig as the forms hold it; it becomes an estimate request once the shared schema passes. */
 export interface RigDraft extends Omit<
   EstimateRequest,
-  'pack' | 'leads' | 'amplifier' | 'speakers' | 'accessories' | 'programme'
+  'pack' | 'leads' | 'speakerLeads' | 'amplifier' | 'speakers' | 'accessories' | 'programme'
 > {
   pack: Editable<PackSpec>
   leads?: Editable<LeadsSpec> | undefined
+  speakerLeads?: Editable<SpeakerLeadsSpec> | undefined
   amplifier: Editable<AmplifierSpec>
   speakers: Editable<SpeakersSpec>
   accessories: Editable<AccessorySpec>[]
