@@ -101,7 +101,7 @@ export function resolveRequest(request: EstimateRequest): {
     programme.playingPct,
     'programme.playingPct',
     DEFAULT_PLAYING_PCT,
-    'engine.md §9 default',
+    'our default',
   )
   const resolvedProgramme = {
     crestFactorDb: programme.crestFactorDb,
@@ -129,14 +129,14 @@ export function resolveRequest(request: EstimateRequest): {
         chemistry.cutoffCellV,
         `common practice for ${chemistry.label}`,
       ),
-      healthPct: pick(pack.healthPct, 'pack.healthPct', DEFAULT_HEALTH_PCT, 'ours: as labelled'),
+      healthPct: pick(pack.healthPct, 'pack.healthPct', DEFAULT_HEALTH_PCT, 'our default: as labelled'),
       peukertExponent: pick(
         pack.peukertExponent,
         'pack.peukertExponent',
         chemistry.peukertExponent,
-        pack.chemistry === 'lead-acid' ? 'engine.md §1: k ≈ 1.1–1.3' : 'from memory',
+        pack.chemistry === 'lead-acid' ? 'common practice: k ≈ 1.1–1.3 for lead-acid' : 'from memory',
       ),
-      count: pick(pack.count, 'pack.count', DEFAULT_PACK_COUNT, 'ours: one pack'),
+      count: pick(pack.count, 'pack.count', DEFAULT_PACK_COUNT, 'our default: one pack'),
       maxDischargeA: pack.maxDischargeA ?? null,
       label: pack.label,
       massKg: pack.massKg,
@@ -165,7 +165,7 @@ export function resolveRequest(request: EstimateRequest): {
         amplifier.ratedThdPct,
         'amplifier.ratedThdPct',
         DEFAULT_RATED_THD_PCT,
-        'ours: the rating taken as the clean 1 % THD figure',
+        'our default: the rating taken as the clean 1 % THD figure',
       ),
       supplyMinV,
       supplyMaxV: amplifier.supplyMaxV ?? null,
@@ -186,7 +186,7 @@ export function resolveRequest(request: EstimateRequest): {
               amplifier.idleCurrentA,
               'amplifier.idleCurrentA',
               DEFAULT_IDLE_CURRENT_A,
-              'engine.md §4 default',
+              'our default',
             ),
       efficiency:
         amplifierClass === 'ab'
@@ -197,7 +197,7 @@ export function resolveRequest(request: EstimateRequest): {
               efficiencyFallback,
               amplifierClass === 'a'
                 ? 'Boylestad & Nashelsky ch. 12: series-fed class A at most 25 %'
-                : 'engine.md §4 default',
+                : 'our default',
             ),
       efficiencyGiven: amplifier.efficiency !== undefined,
       minLoadOhm: pick(
@@ -216,7 +216,7 @@ export function resolveRequest(request: EstimateRequest): {
         speakers.facingListener,
         'speakers.facingListener',
         driversPerChannel * amplifier.channels,
-        'ours: every driver of every channel faces the listener',
+        'our default: every driver of every channel faces the listener',
       ),
     },
     accessories: (request.accessories ?? []).map((accessory, index) => ({
@@ -232,7 +232,7 @@ export function resolveRequest(request: EstimateRequest): {
               accessory.outputV,
               `accessories.${index}.outputV`,
               (accessory.inputMinV + accessory.inputMaxV) / 2,
-              "ours: the middle of the accessory's input range",
+              "our default: the middle of the accessory's input range",
             ),
       efficiency:
         accessory.feed === 'direct' || accessory.feed === 'linear'
@@ -274,13 +274,13 @@ export function resolveRequest(request: EstimateRequest): {
       request.listenerDistanceM,
       'listenerDistanceM',
       DEFAULT_LISTENER_DISTANCE_M,
-      'ours: the front of a small outdoor audience',
+      'our default: the front of a small outdoor audience',
     ),
     boundaryGainDb: pick(
       request.boundaryGainDb,
       'boundaryGainDb',
       DEFAULT_BOUNDARY_GAIN_DB,
-      'engine.md §8: free field',
+      'our default: free field, no wall or ground close by',
     ),
     childrenPresent: request.childrenPresent ?? false,
     swapPolicy: {

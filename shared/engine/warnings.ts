@@ -1,11 +1,13 @@
 // Warnings: stable kebab-case codes (screens and saved plans key on them), and messages that say
 // what to change. Cautions defer to local codes and licensed practice where the work can hurt.
 import type { ConverterResult, EstimateWarning, Severity, StopReason } from '../schemas/estimate'
+import { durationWords } from '../card/format'
 import { areaMm2ToAwg } from '../units'
 import type { Chemistry } from './chemistry'
 import { CHEMISTRY_DATA } from './chemistry'
 import { LINEAR_HEAT_LIMIT_W } from './converters'
 import { leadAreaForCurrentMm2, leadCurrentRatingA } from './leads'
+import { runMomentPhrase } from './moment'
 import type { DropoutOnset } from './dropout'
 import { IMPEDANCE_DIP_FACTOR } from './speakers'
 import { CHILDREN_CAUTION_DB, NIOSH_REL_DBA, WHO_VENUE_LAEQ_DB } from './sound'
@@ -148,8 +150,9 @@ export const WARNING_CATALOGUE = {
 
 export type WarningCode = keyof typeof WARNING_CATALOGUE
 
-export function warning(code: WarningCode, message: string): EstimateWarning {
-  return { code, message, severity: WARNING_CATALOGUE[code].severity }
+export function warning(code: WarningCode, message: string, atMinute?: number): EstimateWarning {
+  const found = { code, message, severity: WARNING_CATALOGUE[code].severity }
+  return atMinute === undefined ? found : { ...found, atMinute }
 }
 
 /** Everything the warnings look at, already computed by the estimate. */
@@ -218,13 +221,15 @@ function stopInWords(reason: StopReason): string {
 
 export function collectWarnings(facts: WarningFacts): EstimateWarning[] {
   const warnings: EstimateWarning[] = []
-  const add = (code: WarningCode, message: string) => warnings.push(warning(code, message))
+  const add = (code: WarningCode, message: string, atMinute?: number) =>
+    warnings.push(warning(code, message, atMinute))
   const chemistry = CHEMISTRY_DATA[facts.chemistry]
 
   if (facts.schedule && !facts.schedule.lasts && facts.schedule.stoppedAtMinute !== null) {
     add(
       'schedule-short',
-      `The rig stops at minute ${Math.round(facts.schedule.stoppedAtMinute)} of ${Math.round(facts.schedule.totalMinutes)} because ${stopInWords(facts.stopReason)}: bring more charged packs, lower the level, or use a larger pack.`,
+      `The rig stops ${runMomentPhrase(facts.schedule.stoppedAtMinute)}, ${durationWords(facts.schedule.totalMinutes - facts.schedule.stoppedAtMinute)} before the schedule ends, because ${stopInWords(facts.stopReason)}: bring more charged packs, lower the level, or use a larger pack.`,
+      facts.schedule.stoppedAtMinute,
     )
   }
   if (facts.anyPackCannotDeliver || facts.stopReason === 'cannot-deliver') {
@@ -310,13 +315,15 @@ export function collectWarnings(facts: WarningFacts): EstimateWarning[] {
     const onset = facts.dropout
     const when =
       onset && onset.fromMinute !== null
-        ? `, from about minute ${Math.round(onset.fromMinute)}`
+        ? `, from ${runMomentPhrase(onset.fromMinute)}`
         : ''
+    const atMinute = onset?.fromMinute ?? undefined
     const lockout = facts.lockoutV !== null ? ` ${fixed(facts.lockoutV)} V` : ''
     if (onset && onset.belowSocPct < DROPOUT_NEAR_EMPTY_SOC_PCT) {
       add(
         'dropout-near-empty',
         `Once a pack is below about ${Math.round(onset.belowSocPct)} % charge${when}, bass peaks pull the amplifier's supply under its${lockout} lock-out and music may cut out: swap packs a little before then, or use a thicker, shorter lead or a pack with more cells in parallel.`,
+        atMinute,
       )
     } else {
       const from = onset
@@ -325,6 +332,7 @@ export function collectWarnings(facts: WarningFacts): EstimateWarning[] {
       add(
         'dropout-risk',
         `On bass peaks the amplifier's supply falls to ${fixed(facts.minPeakSupplyV)} V${facts.lockoutV !== null ? `, below its ${fixed(facts.lockoutV)} V lock-out,` : ''}${from}, so music may cut out well before the pack is flat: lower the level, use a thicker, shorter lead, or a pack with more cells in parallel.`,
+        atMinute,
       )
     }
   }
