@@ -8,7 +8,7 @@ export function runMomentPhrase(minute: number): string {
   return `about ${durationWords(minute)} into the run`
 }
 
-/** A warning's message with its moment on the event clock: "… from about 10:58 …". */
+/** A warning's message with its moment on the event clock: "… at about 10:58 …". */
 export function onEventClock(
   warning: { message: string; atMinute?: number | undefined },
   clockAt: (minute: number) => string,
@@ -16,6 +16,6 @@ export function onEventClock(
   if (warning.atMinute === undefined) return warning.message
   return warning.message.replace(
     runMomentPhrase(warning.atMinute),
-    `about ${clockAt(warning.atMinute)}`,
+    `at about ${clockAt(warning.atMinute)}`,
   )
 }

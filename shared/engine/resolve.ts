@@ -129,12 +129,19 @@ export function resolveRequest(request: EstimateRequest): {
         chemistry.cutoffCellV,
         `common practice for ${chemistry.label}`,
       ),
-      healthPct: pick(pack.healthPct, 'pack.healthPct', DEFAULT_HEALTH_PCT, 'our default: as labelled'),
+      healthPct: pick(
+        pack.healthPct,
+        'pack.healthPct',
+        DEFAULT_HEALTH_PCT,
+        'our default: as labelled',
+      ),
       peukertExponent: pick(
         pack.peukertExponent,
         'pack.peukertExponent',
         chemistry.peukertExponent,
-        pack.chemistry === 'lead-acid' ? 'common practice: k ≈ 1.1–1.3 for lead-acid' : 'from memory',
+        pack.chemistry === 'lead-acid'
+          ? 'common practice: k ≈ 1.1–1.3 for lead-acid'
+          : 'from memory',
       ),
       count: pick(pack.count, 'pack.count', DEFAULT_PACK_COUNT, 'our default: one pack'),
       maxDischargeA: pack.maxDischargeA ?? null,

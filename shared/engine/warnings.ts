@@ -313,10 +313,7 @@ export function collectWarnings(facts: WarningFacts): EstimateWarning[] {
     facts.dropoutRisk && !(facts.dropout && facts.dropout.belowSocPct < STRANDED_SOC_MINIMUM_PCT)
   if (dropoutMatters) {
     const onset = facts.dropout
-    const when =
-      onset && onset.fromMinute !== null
-        ? `, from ${runMomentPhrase(onset.fromMinute)}`
-        : ''
+    const when = onset && onset.fromMinute !== null ? ` (${runMomentPhrase(onset.fromMinute)})` : ''
     const atMinute = onset?.fromMinute ?? undefined
     const lockout = facts.lockoutV !== null ? ` ${fixed(facts.lockoutV)} V` : ''
     if (onset && onset.belowSocPct < DROPOUT_NEAR_EMPTY_SOC_PCT) {
@@ -339,7 +336,8 @@ export function collectWarnings(facts: WarningFacts): EstimateWarning[] {
   if (facts.clipsFromMinute !== null) {
     add(
       'peaks-clip',
-      `From about minute ${Math.round(facts.clipsFromMinute)} the pack has sagged so far that the programme's peaks clip: lower the level a little or swap packs earlier.`,
+      `The programme's peaks start to clip ${runMomentPhrase(facts.clipsFromMinute)}, as the pack sags: lower the level a little or swap packs earlier.`,
+      facts.clipsFromMinute,
     )
   }
   for (const converter of facts.converters) {
