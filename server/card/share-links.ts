@@ -31,8 +31,26 @@ export function sharedCardUrl(publicUrl: string, token: string): string {
   return `${publicUrl}/shared/${token}`
 }
 
-function expiryMs(body: ShareLinkBody, nowMs: number): number | null {
-  if (!body.expiresAt) return null
+/**
+ * When a plan's link stops working unless told otherwise: once the day after the event has ended
+ * everywhere (midnight at UTC−12, the last time zone to leave a date, is 12:00 UTC), so a crew in
+ * any time zone can open it through the event and the day after (our default).
+ */
+export function dayAfterEventEndsMs(planDate: string): number {
+  const [year = 1970, month = 1, day = 1] = planDate.split('-').map(Number)
+  return Date.UTC(year, month - 1, day + 2, 12)
+}
+
+// Ours: a link to a plan whose day is past lasts a week, time to read the card after the event.
+const PAST_EVENT_LINK_DAYS = 7
+
+function expiryMs(body: ShareLinkBody, nowMs: number, planDate: string): number | null {
+  if (body.expiresAt === null) return null
+  if (body.expiresAt === undefined) {
+    const afterEvent = dayAfterEventEndsMs(planDate)
+    if (afterEvent <= nowMs) return nowMs + PAST_EVENT_LINK_DAYS * dayMs
+    return Math.min(afterEvent, nowMs + SHARE_LINK_MAX_DAYS * dayMs)
+  }
   const atMs = Date.parse(body.expiresAt)
   const refuse = (message: string) =>
     new ApiError(400, 'invalid-input', `The request body is not valid. expiresAt: ${message}`, [
@@ -58,6 +76,8 @@ function viewOf(row: ShareLinkRow, createdBy: ShareLinkView['createdBy']): Share
 export interface ShareLinkScope {
   tx: Queryable
   planId: number
+  /** The plan's event date (YYYY-MM-DD): a link without an expiry given lasts until after it. */
+  planDate: string
   userId: number
   nowMs: number
   publicUrl: string
@@ -73,7 +93,7 @@ export function createShareLink(scope: ShareLinkScope, body: ShareLinkBody): Cre
       label: body.label ?? '',
       createdByUserId: scope.userId,
       createdAtMs: scope.nowMs,
-      expiresAtMs: expiryMs(body, scope.nowMs),
+      expiresAtMs: expiryMs(body, scope.nowMs, scope.planDate),
     })
     .returning()
     .get()
