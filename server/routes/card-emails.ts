@@ -50,7 +50,14 @@ export function cardEmailsRouter(
         const plan = requireTeamPlan(tx, teamId, planIdParam(req))
         // The card first: a plan without one gets no link made for nothing.
         const built = planCard(tx, plan)
-        const scope = { tx, planId: plan.id, userId: user.id, nowMs: clock().getTime(), publicUrl }
+        const scope = {
+          tx,
+          planId: plan.id,
+          planDate: plan.date,
+          userId: user.id,
+          nowMs: clock().getTime(),
+          publicUrl,
+        }
         return {
           card: built,
           shareLink: createShareLink(scope, {
@@ -63,7 +70,14 @@ export function cardEmailsRouter(
       for (const to of body.to) {
         try {
           await mail.send(
-            cardMail({ to, teamId, senderName: user.name, card, shareUrl: shareLink.url }),
+            cardMail({
+              to,
+              teamId,
+              senderName: user.name,
+              card,
+              shareUrl: shareLink.url,
+              linkExpiresAt: shareLink.expiresAt,
+            }),
           )
           sent.push(to)
         } catch {

@@ -1,6 +1,7 @@
 // The one function that turns a plan (or a rig alone) and its engine result into the runtime
 // card. The web card, the shared page and the e-mail all show what this returns.
 import { packsNeededForSchedule } from '../engine/compare'
+import { onEventClock } from '../engine/moment'
 import { clockLabel } from '../plans/clock'
 import type { EstimateRequest, EstimateResult, ScheduleSegment } from '../schemas/estimate'
 import { CARD_DISCLAIMER, cardCautions } from './cautions'
@@ -96,7 +97,7 @@ const severityOrder = { danger: 0, caution: 1 } as const
 /** Warnings the hearing caution restates with the same figures, so the card says them once. */
 export const RESTATED_BY_CAUTIONS: readonly string[] = ['hearing-caution', 'children-present']
 
-function keyWarnings(result: EstimateResult): CardWarning[] {
+function keyWarnings(result: EstimateResult, event: CardEvent | undefined): CardWarning[] {
   return result.warnings
     .filter(
       (warning) => warning.severity !== 'info' && !RESTATED_BY_CAUTIONS.includes(warning.code),
@@ -104,7 +105,10 @@ function keyWarnings(result: EstimateResult): CardWarning[] {
     .map((warning) => ({
       code: warning.code,
       severity: warning.severity as CardWarning['severity'],
-      message: warning.message,
+      // A plan's card names moments on its clock; a rig's card, as time since switching on.
+      message: event
+        ? onEventClock(warning, (minute) => clockLabel(event.startTime, minute))
+        : warning.message,
     }))
     .sort((a, b) => severityOrder[a.severity] - severityOrder[b.severity])
 }
@@ -215,7 +219,7 @@ export function buildRuntimeCard(source: CardSource): RuntimeCard {
     segments: segmentsOf(request, result, label),
     meterNote: meterNote(request, result),
     sound: soundOf(request, result),
-    warnings: keyWarnings(result),
+    warnings: keyWarnings(result, event),
     cautions: cardCautions(request, result),
     notes: source.notes ?? '',
     disclaimer: CARD_DISCLAIMER,

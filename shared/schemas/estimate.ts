@@ -464,6 +464,8 @@ export const warningSchema = z.object({
   code: z.string(),
   message: z.string(),
   severity: z.enum(SEVERITIES),
+  /** The minute of the run the message names, when it names one (a plan shows it on its clock). */
+  atMinute: finite.optional(),
 })
 
 export const timelinePointSchema = z.object({

@@ -89,6 +89,10 @@ describe('the runtime card of a plan', () => {
       'Bring 3 charged packs: the 2 packs in the plan do not last the day.',
     )
     expect(card.warnings.map((warning) => warning.code)).toContain('schedule-short')
+    // The card of a plan names the moment on the event clock, as the headline does.
+    expect(card.warnings.find((warning) => warning.code === 'schedule-short')?.message).toMatch(
+      /^The rig stops at about 18:00, 2 h 00 min before the schedule ends/,
+    )
   })
 
   it('keeps the dangers and cautions, dangers first, and leaves the info notes on the bench', () => {
