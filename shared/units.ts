@@ -33,3 +33,13 @@ export function areaMm2ToAwg(areaMm2: number): number {
   const diameterMm = Math.sqrt((4 * areaMm2) / Math.PI)
   return 36 - 39 * (Math.log(diameterMm / 0.127) / Math.log(92))
 }
+
+const KILOGRAMS_PER_POUND = 0.45359237 // exact, international yard and pound agreement (1959)
+
+export function kilogramsToPounds(massKg: number): number {
+  return massKg / KILOGRAMS_PER_POUND
+}
+
+export function poundsToKilograms(massLb: number): number {
+  return massLb * KILOGRAMS_PER_POUND
+}

@@ -1,4 +1,5 @@
 import type { MailMessage } from '../mail/message'
+import { dateWords } from '../../shared/card/format'
 import type { RuntimeCard } from '../../shared/card/model'
 import { cardHtml } from './render-html'
 import { cardText } from './render-text'
@@ -10,9 +11,14 @@ export function cardMail(input: {
   senderName: string
   card: RuntimeCard
   shareUrl: string
+  /** When the link stops working (ISO 8601, UTC), or null while it lasts until revoked. */
+  linkExpiresAt: string | null
 }): MailMessage {
   const { card, shareUrl } = input
-  const intro = `${input.senderName} sent you the runtime card for "${card.title}" from Loudhour.`
+  const until = input.linkExpiresAt
+    ? `until ${dateWords(input.linkExpiresAt.slice(0, 10))}, ${input.linkExpiresAt.slice(11, 16)} UTC`
+    : 'until the team revokes it'
+  const intro = `${input.senderName} sent you the runtime card for "${card.title}" from Loudhour. Its link works ${until}.`
   return {
     to: input.to,
     // The team's admins may read it in the local mail catcher: it holds nothing they cannot see.

@@ -30,8 +30,27 @@ export interface LinkRow {
 
 const dayMs = 24 * 60 * 60 * 1000
 
-function expiryMs(body: ShareLinkBody, nowMs: number): number | null {
-  if (!body.expiresAt) return null
+/**
+ * When a link stops working unless told otherwise: once the day after the event has ended
+ * everywhere (midnight at UTC−12, the last time zone to leave a date, is 12:00 UTC two days
+ * after the date), so a crew in any time zone can open it through the event and the day after
+ * (our default).
+ */
+export function dayAfterEventEndsMs(eventDate: string): number {
+  const [year = 1970, month = 1, day = 1] = eventDate.split('-').map(Number)
+  return Date.UTC(year, month - 1, day + 2, 12)
+}
+
+// Ours: a link to a day that is past lasts a week, time to read the card after the event.
+const PAST_EVENT_LINK_DAYS = 7
+
+function expiryMs(body: ShareLinkBody, nowMs: number, eventDate: string): number | null {
+  if (body.expiresAt === null) return null
+  if (body.expiresAt === undefined) {
+    const afterEvent = dayAfterEventEndsMs(eventDate)
+    if (afterEvent <= nowMs) return nowMs + PAST_EVENT_LINK_DAYS * dayMs
+    return Math.min(afterEvent, nowMs + SHARE_LINK_MAX_DAYS * dayMs)
+  }
   const atMs = Date.parse(body.expiresAt)
   const refuse = (message: string) =>
     new ApiError(400, 'invalid-input', `The request body is not valid. expiresAt: ${message}`, [
@@ -60,6 +79,8 @@ export interface LinkScope {
   userId: number
   nowMs: number
   publicUrl: string
+  /** The day the card is for (YYYY-MM-DD): a link lasts until the day after it by default. */
+  eventDate: string
 }
 
 export interface LinkStore<Row extends LinkRow> {
@@ -98,7 +119,7 @@ export function linkStore<Table extends LinkTable>(
           label: body.label ?? '',
           createdByUserId: scope.userId,
           createdAtMs: scope.nowMs,
-          expiresAtMs: expiryMs(body, scope.nowMs),
+          expiresAtMs: expiryMs(body, scope.nowMs, scope.eventDate),
         } as typeof table.$inferInsert)
         .returning()
         .get()

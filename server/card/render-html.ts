@@ -57,9 +57,11 @@ export function cardHtml(card: RuntimeCard, shareUrl: string, intro?: string): s
             escapeHtml(`${segment.startLabel}–${segment.endLabel}`),
             `<strong>${escapeHtml(segment.label)}</strong>`,
             escapeHtml(segment.activity),
+            segment.meter ? `<strong>${escapeHtml(segment.meter)}</strong>` : '',
           ]),
         )
       : '',
+    card.meterNote ? paragraphs([card.meterNote]) : '',
     card.warnings.length > 0 ? h2(CARD_HEADINGS.warnings) : '',
     card.warnings.length > 0
       ? `<ul style="margin: 4px 0; padding-left: 20px">${card.warnings

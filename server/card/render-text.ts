@@ -23,13 +23,13 @@ export function cardText(card: RuntimeCard, shareUrl: string, intro?: string): s
     section(CARD_HEADINGS.packs, [card.packs.headline, card.packs.packLabel]),
     ...(card.segments.length > 0
       ? [
-          section(
-            CARD_HEADINGS.day,
-            card.segments.map(
+          section(CARD_HEADINGS.day, [
+            ...card.segments.map(
               (segment) =>
-                `${segment.startLabel}–${segment.endLabel}  ${segment.label}: ${segment.activity}`,
+                `${segment.startLabel}–${segment.endLabel}  ${segment.label}: ${segment.activity}${segment.meter ? `. ${segment.meter}` : ''}`,
             ),
-          ),
+            ...(card.meterNote ? [card.meterNote] : []),
+          ]),
         ]
       : []),
     ...(card.warnings.length > 0

@@ -20,10 +20,11 @@ export interface ShareLinkScope {
   userId: number
   nowMs: number
   publicUrl: string
+  planDate: string
 }
 
 export function createShareLink(scope: ShareLinkScope, body: ShareLinkBody): CreatedShareLink {
-  return planLinks.create({ ...scope, ownerId: scope.planId }, body)
+  return planLinks.create({ ...scope, ownerId: scope.planId, eventDate: scope.planDate }, body)
 }
 
 /** The plan's links that still work, newest first. */

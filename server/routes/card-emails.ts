@@ -60,7 +60,14 @@ export function cardEmailsRouter(
           dailyLimit: context.teamMailDailyLimit,
           nowMs: clock().getTime(),
         })
-        const scope = { tx, planId: plan.id, userId: user.id, nowMs: clock().getTime(), publicUrl }
+        const scope = {
+          tx,
+          planId: plan.id,
+          planDate: plan.date,
+          userId: user.id,
+          nowMs: clock().getTime(),
+          publicUrl,
+        }
         return {
           card: built,
           shareLink: createShareLink(scope, {
@@ -73,7 +80,14 @@ export function cardEmailsRouter(
       for (const to of body.to) {
         try {
           await mail.send(
-            cardMail({ to, teamId, senderName: user.name, card, shareUrl: shareLink.url }),
+            cardMail({
+              to,
+              teamId,
+              senderName: user.name,
+              card,
+              shareUrl: shareLink.url,
+              linkExpiresAt: shareLink.expiresAt,
+            }),
           )
           sent.push(to)
         } catch {

@@ -19,17 +19,19 @@ import { shareLinkBodySchema } from '../../shared/card/schemas'
 
 const noSuchEvent = 'No such event in this team.'
 
-/** The team's event id from the path, or 404 (another team's event is as unknown as none). */
-function requireTeamEventId(db: Queryable, req: Request): number {
+/** The team's event from the path, or 404 (another team's event is as unknown as none). */
+function requireTeamEvent(db: Queryable, req: Request): { id: number; date: string } {
   const eventId = rowIdParam(req, 'eventId', noSuchEvent)
   const found = db
-    .select({ id: events.id })
+    .select({ id: events.id, date: events.date })
     .from(events)
     .where(and(eq(events.id, eventId), eq(events.teamId, teamMembership(req).teamId)))
     .get()
   if (!found) throw new ApiError(404, 'not-found', noSuchEvent)
-  return found.id
+  return found
 }
+
+const requireTeamEventId = (db: Queryable, req: Request): number => requireTeamEvent(db, req).id
 
 export function eventShareLinksRouter(
   context: Pick<AccountsContext, 'db' | 'clock' | 'publicUrl'>,
@@ -43,18 +45,20 @@ export function eventShareLinksRouter(
 
   router.post('/', requireTeamRole('editor'), (req, res) => {
     const body = parseInput(shareLinkBodySchema, req.body ?? {})
-    const created = db.transaction((tx) =>
-      eventLinks.create(
+    const created = db.transaction((tx) => {
+      const event = requireTeamEvent(tx, req)
+      return eventLinks.create(
         {
           tx,
-          ownerId: requireTeamEventId(tx, req),
+          ownerId: event.id,
           userId: signedInUser(req).user.id,
           nowMs: clock().getTime(),
           publicUrl,
+          eventDate: event.date,
         },
         body,
-      ),
-    )
+      )
+    })
     res.status(201).json(created)
   })
 

@@ -11,7 +11,9 @@ import { shareLinkBodySchema } from '../../shared/card/schemas'
  * Read-only links to a plan's card, mounted at `/api/v1/teams/:teamId/plans/:planId/share-links`:
  *
  *   GET    /          viewer  → { items }: the links that still work, newest first (no tokens)
- *   POST   /          editor  { label?, expiresAt? } → 201 { id, url, ... }: the only time the url is shown
+ *   POST   /          editor  { label?, expiresAt? } → 201 { id, url, ... }: the only time the url is shown;
+ *                      without expiresAt the link lasts until the day after the plan's date, null is
+ *                      until revoked
  *   DELETE /:linkId   editor  → 204; the link answers 404 from then on
  */
 
@@ -37,6 +39,7 @@ export function shareLinksRouter(
       const scope = {
         tx,
         planId: plan.id,
+        planDate: plan.date,
         userId: signedInUser(req).user.id,
         nowMs: clock().getTime(),
         publicUrl,

@@ -1,11 +1,13 @@
 // The one function that turns a plan (or a rig alone) and its engine result into the runtime
 // card. The web card, the shared page and the e-mail all show what this returns.
 import { packsNeededForSchedule } from '../engine/compare'
+import { onEventClock } from '../engine/moment'
 import { clockLabel } from '../plans/clock'
 import type { EstimateRequest, EstimateResult, ScheduleSegment } from '../schemas/estimate'
 import { CARD_DISCLAIMER, cardCautions } from './cautions'
 import { dateWords, distanceWords, durationWords, figure, plural, temperatureWords } from './format'
 import type { CardSegment, CardSwap, CardWarning, RuntimeCard } from './model'
+import { meterLine, meterNote } from './meter'
 import { packLine, rigLine } from './rig-line'
 
 export interface CardEvent {
@@ -60,20 +62,30 @@ function activityOf(segment: ScheduleSegment, request: EstimateRequest): string 
   const state = segment.state ?? 'on'
   if (state === 'off') return 'Rig switched off'
   if (state === 'idle') return 'Rig on, no music'
+  if (state === 'charging') {
+    const power = segment.chargeW === undefined ? '' : ` (${figure(segment.chargeW, 0)} W into it)`
+    return `Rig silent; its pack on the charger${power}`
+  }
   const playingPct = segment.playingPct ?? request.programme.playingPct
   const peakBelowClipDb = segment.peakBelowClipDb ?? request.programme.peakBelowClipDb
   const playing = playingPct === undefined ? '' : ` ${figure(playingPct, 0)} % of the time;`
   return `Sound${playing} peaks ${figure(peakBelowClipDb)} dB below clipping`
 }
 
-function segmentsOf(request: EstimateRequest, label: MinuteLabel): CardSegment[] {
+function segmentsOf(
+  request: EstimateRequest,
+  result: EstimateResult,
+  label: MinuteLabel,
+): CardSegment[] {
   let startMinute = 0
-  return (request.schedule ?? []).map((segment) => {
+  const levels = result.schedule?.segments ?? []
+  return (request.schedule ?? []).map((segment, index) => {
     const row = {
       startLabel: label(startMinute),
       endLabel: label(startMinute + segment.minutes),
       label: segment.label,
       activity: activityOf(segment, request),
+      meter: meterLine(levels[index]),
     }
     startMinute += segment.minutes
     return row
@@ -85,7 +97,7 @@ const severityOrder = { danger: 0, caution: 1 } as const
 /** Warnings the hearing caution restates with the same figures, so the card says them once. */
 export const RESTATED_BY_CAUTIONS: readonly string[] = ['hearing-caution', 'children-present']
 
-function keyWarnings(result: EstimateResult): CardWarning[] {
+function keyWarnings(result: EstimateResult, event: CardEvent | undefined): CardWarning[] {
   return result.warnings
     .filter(
       (warning) => warning.severity !== 'info' && !RESTATED_BY_CAUTIONS.includes(warning.code),
@@ -93,7 +105,10 @@ function keyWarnings(result: EstimateResult): CardWarning[] {
     .map((warning) => ({
       code: warning.code,
       severity: warning.severity as CardWarning['severity'],
-      message: warning.message,
+      // A plan's card names moments on its clock; a rig's card, as time since switching on.
+      message: event
+        ? onEventClock(warning, (minute) => clockLabel(event.startTime, minute))
+        : warning.message,
     }))
     .sort((a, b) => severityOrder[a.severity] - severityOrder[b.severity])
 }
@@ -201,9 +216,10 @@ export function buildRuntimeCard(source: CardSource): RuntimeCard {
     packs: packsOf(request, result),
     swaps: swapsOf(result, label),
     noSwapNote: noSwapNoteOf(result),
-    segments: segmentsOf(request, label),
+    segments: segmentsOf(request, result, label),
+    meterNote: meterNote(request, result),
     sound: soundOf(request, result),
-    warnings: keyWarnings(result),
+    warnings: keyWarnings(result, event),
     cautions: cardCautions(request, result),
     notes: source.notes ?? '',
     disclaimer: CARD_DISCLAIMER,

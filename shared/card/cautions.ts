@@ -27,10 +27,13 @@ function hearing(request: EstimateRequest, result: EstimateResult): CardCaution 
 
 function battery(request: EstimateRequest): CardCaution {
   const chemistry = request.pack.chemistry
+  const charging = (request.schedule ?? []).some((segment) => segment.state === 'charging')
+    ? " Charging at a break: only with the maker's charger, on a hard non-flammable surface, in sight, and never a damaged, hot or cold pack."
+    : ''
   const rating =
-    request.pack.maxDischargeA === undefined
+    (request.pack.maxDischargeA === undefined
       ? ''
-      : ` Stay within its ${figure(request.pack.maxDischargeA)} A discharge rating.`
+      : ` Stay within its ${figure(request.pack.maxDischargeA)} A discharge rating.`) + charging
   if (CHEMISTRY_DATA[chemistry].isLithium) {
     return {
       topic: 'battery',

@@ -21,6 +21,8 @@ export interface CardSegment {
   label: string
   /** What the rig does: "Sound 90 % of the time; peaks 2 dB below clipping". */
   activity: string
+  /** What a sound level meter should read while the music plays; null for a silent segment. */
+  meter: string | null
 }
 
 export interface CardWarning {
@@ -71,6 +73,8 @@ export interface RuntimeCard {
   /** Said instead of the swap list when there is none. */
   noSwapNote: string
   segments: CardSegment[]
+  /** How to set the levels by meter, and that the readings are estimates; null without music. */
+  meterNote: string | null
   /** The estimated level at the listener and the exposure it allows; null without sensitivity. */
   sound: string | null
   /**

@@ -32,11 +32,15 @@ import { resolveRequest } from './resolve'
 import type { RigLoads, RunOutcome, RunSegment } from './run'
 import { OPEN_RUN_LIMIT_MINUTES, emptyOperatingPoint, runRig, solveOperatingPoint } from './run'
 import { peakEnvelope } from './peaks'
-import { equivalentLevelDb, nioshPermittedMinutes, soundLevelDb, WHO_VENUE_LAEQ_DB } from './sound'
+import { equivalentLevelDb, nioshPermittedMinutes, WHO_VENUE_LAEQ_DB } from './sound'
 import { driversPerChannel, loadOhm } from './speakers'
 import { dropoutOnset } from './dropout'
 import type { DropoutOnset } from './dropout'
 import { ENGINE_VERSION } from './version'
+import { reserveShortfall, reserveWarning } from './reserve'
+import { listenerLevelDb, segmentResults } from './segment-levels'
+import type { SpeakerLeadsModel } from './speaker-leads'
+import { speakerLeadsModel } from './speaker-leads'
 import { collectWarnings } from './warnings'
 
 /** Everything fixed for a run: built once per request, shared by estimate, compare and fixes. */
@@ -50,6 +54,9 @@ export interface PreparedRig {
   programmeSegment: RunSegment
   openEnded: boolean
   outputResistanceClamped: boolean
+  /** The speakers' own load per channel, without the speaker leads. */
+  speakerLoadOhm: number
+  speakerLeads: SpeakerLeadsModel
 }
 
 export function prepareRig(request: EstimateRequest): PreparedRig {
@@ -57,7 +64,10 @@ export function prepareRig(request: EstimateRequest): PreparedRig {
   const temperatureC = resolved.temperatureC
   const pack = buildPack(resolved.pack, temperatureC)
   const leadOhm = resolved.leads ? leadResistanceOhm(resolved.leads, temperatureC) : 0
-  const channelLoadOhm = loadOhm(resolved.speakers)
+  const speakerLoadOhm = loadOhm(resolved.speakers)
+  const speakerLeads = speakerLeadsModel(resolved.speakerLeads, speakerLoadOhm, temperatureC)
+  // The amplifier drives the speaker leads and the speakers in series.
+  const channelLoadOhm = speakerLoadOhm + speakerLeads.resistanceOhm
   const amp = resolved.amplifier
   // engine.md §4: a rating at 10 % THD is about 1 dB above the clean figure
   const cleanRatedPowerW = amp.ratedPowerW * 10 ** (-ratingExcessDb(amp.ratedThdPct) / 10)
@@ -127,12 +137,14 @@ export function prepareRig(request: EstimateRequest): PreparedRig {
     meanToRms: meanToRmsRatio(segment.crestFactorDb),
     headroomPeakW:
       segment.state === 'on' ? peakPowerW(referenceClipW, segment.peakBelowClipDb) : programmePeakW,
+    chargeW: segment.chargeW,
   })
   const programmeSegment = toRunSegment({
     label: 'programme',
     minutes: OPEN_RUN_LIMIT_MINUTES,
     state: 'on',
     ...resolved.programme,
+    chargeW: 0,
   })
   const segments = resolved.schedule ? resolved.schedule.map(toRunSegment) : [programmeSegment]
   return {
@@ -144,6 +156,8 @@ export function prepareRig(request: EstimateRequest): PreparedRig {
     programmeSegment,
     openEnded: resolved.schedule === null,
     outputResistanceClamped: output.clamped,
+    speakerLoadOhm,
+    speakerLeads,
   }
 }
 
@@ -308,16 +322,8 @@ function soundFigures(
   const { resolved } = prepared
   const speakers = resolved.speakers
   if (speakers.sensitivityDb === null || !loudest) return { splDb: undefined, exposure: undefined }
-  const sensitivityDb = speakers.sensitivityDb
-  const drivers = driversPerChannel(speakers)
-  const levelAt = (channelPowerW: number) =>
-    soundLevelDb(
-      sensitivityDb,
-      channelPowerW / drivers,
-      speakers.facingListener,
-      resolved.listenerDistanceM,
-      resolved.boundaryGainDb,
-    )
+  // Through the speaker leads' share, summed in power over the drivers facing the listener.
+  const levelAt = (channelPowerW: number) => listenerLevelDb(prepared, channelPowerW) ?? 0
   const average = equivalentLevelDb(levelAt(loudest.outputPerChannelW), loudest.playingShare)
   // Peaks are at least the level while playing (a programme under 3 dB crest factor).
   const peak = levelAt(Math.max(loudest.peakPerChannelW, loudest.outputPerChannelW))
@@ -406,6 +412,9 @@ export function summarise(prepared: PreparedRig, outcome: RunOutcome): EstimateR
         swaps: outcome.swaps,
         totalMinutes,
         stoppedAtMinute: lasts ? null : outcome.elapsedS / 60,
+        segments: segmentResults(prepared, outcome),
+        endSocPct: outcome.endSoc * 100,
+        sparePacks: resolved.pack.count - outcome.packsUsed,
       }
     : undefined
   // Nothing played: no headroom figure to give, 0 keeps the result finite.
@@ -417,7 +426,7 @@ export function summarise(prepared: PreparedRig, outcome: RunOutcome): EstimateR
     chemistry: pack.chemistry,
     temperatureC: resolved.temperatureC,
     capacityFactor: capacityTemperatureFactor(pack.chemistry, resolved.temperatureC),
-    loadOhm: amplifier.loadOhm,
+    loadOhm: prepared.speakerLoadOhm,
     minLoadOhm: resolved.amplifier.minLoadOhm,
     chargedPackV: pack.chargedV,
     cutoffSupplyV: cutoffLeadSupplyV,
@@ -451,6 +460,8 @@ export function summarise(prepared: PreparedRig, outcome: RunOutcome): EstimateR
     nominalWh: nominalPackWh,
     airlineClass: packClass,
   })
+  const reserve = reserveShortfall(prepared, outcome)
+  if (reserve) warnings.push(reserveWarning(reserve))
 
   const massKg = resolved.pack.massKg
   return {
@@ -459,7 +470,7 @@ export function summarise(prepared: PreparedRig, outcome: RunOutcome): EstimateR
     stopReason: outcome.stopReason,
     musicHours: outcome.musicS / 3600,
     averageDrawW: perSecond(outcome.deliveredJ, outcome.poweredS),
-    loadOhm: amplifier.loadOhm,
+    loadOhm: prepared.speakerLoadOhm,
     leadResistanceOhm: rig.leadOhm,
     energyWh: {
       nominal: nominalPackWh,
@@ -487,6 +498,10 @@ export function summarise(prepared: PreparedRig, outcome: RunOutcome): EstimateR
     warnings,
     timeline,
     ...(scheduleResult ? { schedule: scheduleResult } : {}),
+    speakerLeads: {
+      resistanceOhm: prepared.speakerLeads.resistanceOhm,
+      lossPct: prepared.speakerLeads.lossPct,
+    },
     pack: {
       ...(resolved.pack.label === undefined ? {} : { label: resolved.pack.label }),
       nominalV: pack.nominalV,
@@ -507,11 +522,17 @@ export function summarise(prepared: PreparedRig, outcome: RunOutcome): EstimateR
       averageOutputW: perSecond(outcome.ampOutputJ, outcome.musicS),
     },
     speakers: {
-      loadOhm: amplifier.loadOhm,
+      loadOhm: prepared.speakerLoadOhm,
       driversPerChannel: driversPerChannel(resolved.speakers),
       powerPerDriverW: {
-        average: loudest ? loudest.outputPerChannelW / driversPerChannel(resolved.speakers) : 0,
-        peak: loudest ? loudest.peakPerChannelW / driversPerChannel(resolved.speakers) : 0,
+        average: loudest
+          ? (loudest.outputPerChannelW * prepared.speakerLeads.speakerShare) /
+            driversPerChannel(resolved.speakers)
+          : 0,
+        peak: loudest
+          ? (loudest.peakPerChannelW * prepared.speakerLeads.speakerShare) /
+            driversPerChannel(resolved.speakers)
+          : 0,
       },
     },
     leads: {

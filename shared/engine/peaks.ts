@@ -49,6 +49,7 @@ function burstSegment(burstPerChannelW: number): RunSegment {
     averageToClipAtClipping: 1, // a sine
     meanToRms: SINE_BURST_MEAN_TO_RMS,
     headroomPeakW: burstPerChannelW,
+    chargeW: 0,
   }
 }
 

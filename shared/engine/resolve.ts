@@ -32,6 +32,8 @@ export interface ResolvedSegment {
   peakBelowClipDb: number
   crestFactorDb: number
   playingPct: number
+  /** Power into the pack in a 'charging' segment; 0 in the others. */
+  chargeW: number
 }
 
 export interface ResolvedRequest {
@@ -44,6 +46,8 @@ export interface ResolvedRequest {
     price?: number | undefined
   }
   leads: LeadInputs | null
+  /** Per channel, amplifier to speakers; no connector allowance (speaker terminals, not a fuse). */
+  speakerLeads: LeadInputs | null
   amplifier: {
     ampClass: AmplifierClass
     bridged: boolean
@@ -142,7 +146,7 @@ export function resolveRequest(request: EstimateRequest): {
     programme.playingPct,
     'programme.playingPct',
     DEFAULT_PLAYING_PCT,
-    'ours: the programme plays all the time unless told',
+    'our default: the programme plays all the time unless told',
   )
   const resolvedProgramme = {
     crestFactorDb: programme.crestFactorDb,
@@ -150,7 +154,12 @@ export function resolveRequest(request: EstimateRequest): {
     playingPct: programmePlayingPct,
   }
   const supplyMinV = amplifier.supplyMinV ?? null
-  const healthPct = pick(pack.healthPct, 'pack.healthPct', DEFAULT_HEALTH_PCT, 'ours: as labelled')
+  const healthPct = pick(
+    pack.healthPct,
+    'pack.healthPct',
+    DEFAULT_HEALTH_PCT,
+    'our default: as labelled',
+  )
   const driversPerChannel = speakers.parallel * speakers.banks
 
   const resolved: ResolvedRequest = {
@@ -187,7 +196,7 @@ export function resolveRequest(request: EstimateRequest): {
       ),
       // A Peukert exponent given by the user carries the whole rate effect.
       rateLossPerC: pack.peukertExponent === undefined ? chemistry.rateLossPerC : 0,
-      count: pick(pack.count, 'pack.count', DEFAULT_PACK_COUNT, 'ours: one pack'),
+      count: pick(pack.count, 'pack.count', DEFAULT_PACK_COUNT, 'our default: one pack'),
       maxDischargeA: pack.maxDischargeA ?? null,
       label: pack.label,
       massKg: pack.massKg,
@@ -203,6 +212,13 @@ export function resolveRequest(request: EstimateRequest): {
             DEFAULT_CONNECTOR_OHM,
             'from memory: two connectors and a blade fuse',
           ),
+        }
+      : null,
+    speakerLeads: request.speakerLeads
+      ? {
+          areaMm2: leadAreaMm2(request.speakerLeads),
+          lengthM: request.speakerLeads.lengthM,
+          connectorOhm: 0,
         }
       : null,
     amplifier: {
@@ -271,7 +287,7 @@ export function resolveRequest(request: EstimateRequest): {
         speakers.facingListener,
         'speakers.facingListener',
         driversPerChannel * amplifier.channels,
-        'ours: every driver of every channel faces the listener',
+        'our default: every driver of every channel faces the listener',
       ),
     },
     accessories: (request.accessories ?? []).map((accessory, index) => ({
@@ -287,7 +303,7 @@ export function resolveRequest(request: EstimateRequest): {
               accessory.outputV,
               `accessories.${index}.outputV`,
               (accessory.inputMinV + accessory.inputMaxV) / 2,
-              "ours: the middle of the accessory's input range",
+              "our default: the middle of the accessory's input range",
             ),
       efficiency:
         accessory.feed === 'direct' || accessory.feed === 'linear'
@@ -318,6 +334,7 @@ export function resolveRequest(request: EstimateRequest): {
           peakBelowClipDb: segment.peakBelowClipDb ?? resolvedProgramme.peakBelowClipDb,
           crestFactorDb: segment.crestFactorDb ?? resolvedProgramme.crestFactorDb,
           playingPct: segment.playingPct ?? resolvedProgramme.playingPct,
+          chargeW: segment.state === 'charging' ? (segment.chargeW ?? 0) : 0,
         }))
       : null,
     temperatureC: pick(
@@ -330,13 +347,13 @@ export function resolveRequest(request: EstimateRequest): {
       request.listenerDistanceM,
       'listenerDistanceM',
       DEFAULT_LISTENER_DISTANCE_M,
-      'ours: the front of a small outdoor audience',
+      'our default: the front of a small outdoor audience',
     ),
     boundaryGainDb: pick(
       request.boundaryGainDb,
       'boundaryGainDb',
       DEFAULT_BOUNDARY_GAIN_DB,
-      'ours: free field unless a boundary is given',
+      'our default: free field unless a boundary is given',
     ),
     childrenPresent: request.childrenPresent ?? false,
     swapPolicy: {

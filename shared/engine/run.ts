@@ -10,6 +10,7 @@ import {
   mixedLoadCurrentA,
   packOpenCircuitV,
 } from './pack'
+import { chargeAh } from './charging'
 import { TimelineRecorder } from './timeline'
 
 export const MAX_STEP_S = 10 // engine.md §7: step ≤ 10 s of simulated time
@@ -30,6 +31,8 @@ export interface RunSegment {
   meanToRms: number
   /** Peak power the timeline's headroom is measured against (the request's programme when idle). */
   headroomPeakW: number
+  /** Power into the pack in a 'charging' segment (the rig is silent); 0 otherwise. */
+  chargeW: number
 }
 
 export interface RigLoads {
@@ -82,7 +85,7 @@ export function solveOperatingPoint(
   supplyGuessV: number,
   out: OperatingPoint,
 ): boolean {
-  if (segment.state === 'off') {
+  if (segment.state === 'off' || segment.state === 'charging') {
     out.currentA = 0
     out.terminalV = sourceV
     out.supplyV = sourceV
@@ -163,6 +166,8 @@ export interface RunTotals {
   ampLossJ: number
   accessoryJ: number
   converterLossJ: number
+  /** Energy put into the packs at charging breaks (at their open-circuit voltage). */
+  chargedJ: number
   musicS: number
   poweredS: number
   /** ∫I dt over powered time and over 'on' time, and ∫V_terminal dt over 'on' time. */
@@ -182,6 +187,7 @@ export interface RunTotals {
 export interface SegmentEnd {
   deliveredJ: number
   chemicalJ: number
+  chargedJ: number
   elapsedS: number
   /** The pack in the rig at that moment (1 is the first). */
   pack: number
@@ -191,6 +197,8 @@ export interface RunOutcome extends RunTotals {
   stopReason: StopReason
   elapsedS: number
   packsUsed: number
+  /** State of charge (0..1) of the pack in the rig when the run ended. */
+  endSoc: number
   /**
    * One entry per segment the run reached, in order; the run's totals as each ended. A swap at the
    * very end of a segment comes after its entry (the pack that ran it is the one named).
@@ -271,6 +279,7 @@ export function runRig(
     ampLossJ: 0,
     accessoryJ: 0,
     converterLossJ: 0,
+    chargedJ: 0,
     musicS: 0,
     poweredS: 0,
     poweredChargeAs: 0,
@@ -291,6 +300,7 @@ export function runRig(
     segmentEnds.push({
       deliveredJ: totals.deliveredJ,
       chemicalJ: totals.chemicalJ,
+      chargedJ: totals.chargedJ,
       elapsedS: at.elapsedS,
       pack: at.pack,
     })
@@ -375,6 +385,7 @@ export function runRig(
           stopReason: reason,
           elapsedS: at.elapsedS,
           packsUsed: at.pack,
+          endSoc: at.soc,
           segmentEnds: segmentEnds.slice(),
           swaps: swaps.slice(),
           packRuns: packRuns.slice(),
@@ -389,10 +400,40 @@ export function runRig(
     return false
   }
 
+  /** A charging break: the rig is silent and the pack in it gains charge, up to full. */
+  const chargeThrough = (segment: RunSegment) => {
+    at.forceNextSample = true
+    let remainingS = segment.durationS
+    while (remainingS > 1e-9) {
+      const stepS = remainingS < MAX_STEP_S ? remainingS : MAX_STEP_S
+      const openV = packOpenCircuitV(pack, at.soc)
+      const gainedAs = chargeAh(segment.chargeW, openV, stepS / 60, at.chargeAs / 3600) * 3600
+      const currentA = gainedAs / stepS
+      // At the terminals a charging pack sits above its open-circuit voltage by I·R; the draw
+      // shown is minus the power stored, chargeW until the pack is full.
+      const terminalV = openV + currentA * pack.resistanceOhm
+      if (timeline && (at.forceNextSample || stepCount % timeline.stride === 0)) {
+        const forced = at.forceNextSample
+        at.forceNextSample = false
+        sample(terminalV, -openV * currentA, terminalV, 'charging', segment.headroomPeakW, forced)
+      }
+      stepCount++
+      totals.chargedJ += openV * gainedAs
+      at.chargeAs = Math.max(0, at.chargeAs - gainedAs)
+      at.soc = 1 - at.chargeAs / capacityAs
+      at.elapsedS += stepS
+      remainingS -= stepS
+    }
+    const openV = packOpenCircuitV(pack, at.soc)
+    sample(openV, 0, openV, 'charging', segment.headroomPeakW, true)
+    at.forceNextSample = true
+  }
+
   segmentLoop: for (let s = 0; s < segments.length; s++) {
     const segment = segments[s]!
     if (
       s > 0 &&
+      segment.state !== 'charging' && // the pack in the rig is the one that charges
       options.swapPolicy.mode === 'at-break-below' &&
       at.soc * 100 < options.swapPolicy.belowSocPct &&
       at.pack < options.maxPacks
@@ -406,6 +447,11 @@ export function runRig(
       at.elapsedS += segment.durationS
       sample(openV, 0, openV, 'off', segment.headroomPeakW, true)
       at.forceNextSample = true
+      endSegment(s)
+      continue
+    }
+    if (segment.state === 'charging') {
+      chargeThrough(segment)
       endSegment(s)
       continue
     }
@@ -509,6 +555,7 @@ export function runRig(
     stopReason: finalReason,
     elapsedS: at.elapsedS,
     packsUsed: at.pack,
+    endSoc: at.soc,
     segmentEnds,
     swaps,
     packRuns,

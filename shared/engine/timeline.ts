@@ -1,7 +1,8 @@
 import type { SegmentState, TimelinePoint } from '../schemas/estimate'
+import { SEGMENT_STATES } from '../schemas/estimate'
 
 export const MAX_TIMELINE_POINTS = 500
-const STATES: readonly SegmentState[] = ['on', 'idle', 'off']
+const STATES: readonly SegmentState[] = SEGMENT_STATES
 
 /**
  * Keeps at most 500 chart points without allocating inside the step loop: the run offers a

@@ -1,11 +1,13 @@
 // Warnings: stable kebab-case codes (screens and saved plans key on them), and messages that say
 // what to change. Cautions defer to local codes and licensed practice where the work can hurt.
 import type { ConverterResult, EstimateWarning, Severity, StopReason } from '../schemas/estimate'
+import { durationWords } from '../card/format'
 import { areaMm2ToAwg } from '../units'
 import type { Chemistry } from './chemistry'
 import { CHEMISTRY_DATA } from './chemistry'
 import { LINEAR_HEAT_LIMIT_W } from './converters'
 import { leadAreaForCurrentMm2, leadCurrentRatingA } from './leads'
+import { runMomentPhrase } from './moment'
 import type { DropoutOnset } from './dropout'
 import { DROPOUT_NEAR_EMPTY_SOC_PCT } from './dropout'
 import { IMPEDANCE_DIP_FACTOR } from './speakers'
@@ -122,6 +124,10 @@ export const WARNING_CATALOGUE = {
     severity: 'danger',
     meaning: 'The packs on hand do not last the schedule.',
   },
+  'reserve-low': {
+    severity: 'caution',
+    meaning: 'The day lasts but ends below 20 % in the last pack, with no spare left.',
+  },
   'runtime-limit': {
     severity: 'info',
     meaning: 'The run without a schedule reached the 7-day limit of simulated time.',
@@ -150,8 +156,9 @@ export const WARNING_CATALOGUE = {
 
 export type WarningCode = keyof typeof WARNING_CATALOGUE
 
-export function warning(code: WarningCode, message: string): EstimateWarning {
-  return { code, message, severity: WARNING_CATALOGUE[code].severity }
+export function warning(code: WarningCode, message: string, atMinute?: number): EstimateWarning {
+  const found = { code, message, severity: WARNING_CATALOGUE[code].severity }
+  return atMinute === undefined ? found : { ...found, atMinute }
 }
 
 /** Everything the warnings look at, already computed by the estimate. */
@@ -249,8 +256,7 @@ function dropoutFixes(onset: DropoutOnset): string {
 
 /** The part that mutes on bass peaks, from what charge, and the fix in numbers. */
 function dropoutWarning(onset: DropoutOnset, minPeakSupplyV: number): [WarningCode, string] {
-  const when =
-    onset.fromMinute !== null ? `, from about minute ${Math.round(onset.fromMinute)}` : ''
+  const when = onset.fromMinute !== null ? ` (${runMomentPhrase(onset.fromMinute)})` : ''
   const who = partInWords(onset.part)
   const charge = Math.round(onset.belowSocPct)
   if (onset.belowSocPct < DROPOUT_NEAR_EMPTY_SOC_PCT) {
@@ -271,13 +277,15 @@ function dropoutWarning(onset: DropoutOnset, minPeakSupplyV: number): [WarningCo
 
 export function collectWarnings(facts: WarningFacts): EstimateWarning[] {
   const warnings: EstimateWarning[] = []
-  const add = (code: WarningCode, message: string) => warnings.push(warning(code, message))
+  const add = (code: WarningCode, message: string, atMinute?: number) =>
+    warnings.push(warning(code, message, atMinute))
   const chemistry = CHEMISTRY_DATA[facts.chemistry]
 
   if (facts.schedule && !facts.schedule.lasts && facts.schedule.stoppedAtMinute !== null) {
     add(
       'schedule-short',
-      `The rig stops at minute ${Math.round(facts.schedule.stoppedAtMinute)} of ${Math.round(facts.schedule.totalMinutes)} because ${stopInWords(facts.stopReason)}: bring more charged packs, lower the level, or use a larger pack.`,
+      `The rig stops ${runMomentPhrase(facts.schedule.stoppedAtMinute)}, ${durationWords(facts.schedule.totalMinutes - facts.schedule.stoppedAtMinute)} before the schedule ends, because ${stopInWords(facts.stopReason)}: bring more charged packs, lower the level, or use a larger pack.`,
+      facts.schedule.stoppedAtMinute,
     )
   }
   if (facts.anyPackCannotDeliver || facts.stopReason === 'cannot-deliver') {
@@ -357,12 +365,16 @@ export function collectWarnings(facts: WarningFacts): EstimateWarning[] {
     }
   }
   if (facts.dropoutRisk && facts.dropout) {
-    add(...dropoutWarning(facts.dropout, facts.minPeakSupplyV))
+    add(
+      ...dropoutWarning(facts.dropout, facts.minPeakSupplyV),
+      facts.dropout.fromMinute ?? undefined,
+    )
   }
   if (facts.clipsFromMinute !== null) {
     add(
       'peaks-clip',
-      `From about minute ${Math.round(facts.clipsFromMinute)} the pack has sagged so far that the programme's peaks clip: lower the level a little or swap packs earlier.`,
+      `The programme's peaks start to clip ${runMomentPhrase(facts.clipsFromMinute)}, as the pack sags: lower the level a little or swap packs earlier.`,
+      facts.clipsFromMinute,
     )
   }
   for (const converter of facts.converters) {

@@ -69,7 +69,7 @@ export const ACCESSORY_FEEDS = [
   'isolated',
   'linear',
 ] as const
-export const SEGMENT_STATES = ['on', 'idle', 'off'] as const
+export const SEGMENT_STATES = ['on', 'idle', 'off', 'charging'] as const
 export const SWAP_MODES = ['when-empty', 'at-break-below'] as const
 export const STOP_REASONS = [
   'pack-cutoff',
@@ -145,38 +145,65 @@ export const packSchema = z
     }
   })
 
-export const leadsSchema = z
-  .object(
+/**
+ * A two-conductor copper run given by its wire size (AWG or mm², exactly one) and one-way length:
+ * the DC lead from pack to amplifier (`Lead`) and the speaker leads (`Speaker lead`).
+ */
+function copperPairSchema(noun: string, maxLengthM: number) {
+  return z.object(
     {
-      awg: quantity('Lead wire gauge (AWG; 2/0 is -1, 3/0 is -2, 4/0 is -3)', {
+      awg: quantity(`${noun} wire gauge (AWG; 2/0 is -1, 3/0 is -2, 4/0 is -3)`, {
         min: -3,
         max: 40,
         whole: true,
       }).optional(),
-      areaMm2: quantity('Lead conductor area', {
+      areaMm2: quantity(`${noun} conductor area`, {
         min: 0,
         max: 500,
         aboveMin: true,
         unit: 'mm²',
       }).optional(),
-      lengthM: quantity('Lead length (one way)', { min: 0, max: 100, aboveMin: true, unit: 'm' }),
-      connectorOhm: quantity('Connector and fuse resistance', {
+      lengthM: quantity(`${noun} length (one way)`, {
         min: 0,
-        max: 1,
-        unit: 'ohm',
-      }).optional(),
+        max: maxLengthM,
+        aboveMin: true,
+        unit: 'm',
+      }),
     },
-    { error: 'Leads must give a wire size (awg or areaMm2) and a one-way length' },
+    { error: `${noun}s must give a wire size (awg or areaMm2) and a one-way length` },
   )
-  .superRefine((leads, context) => {
-    if ((leads.awg === undefined) === (leads.areaMm2 === undefined)) {
+}
+
+/** Exactly one of AWG and mm² (both or neither is ambiguous). */
+function oneWireSize(lower: string) {
+  return (
+    wire: { awg?: number | undefined; areaMm2?: number | undefined },
+    context: z.RefinementCtx,
+  ) => {
+    if ((wire.awg === undefined) === (wire.areaMm2 === undefined)) {
       context.addIssue({
         code: 'custom',
         path: ['awg'],
-        message: "Give the lead's wire size either as AWG or as area in mm², exactly one of them",
+        message: `Give the ${lower}'s wire size either as AWG or as area in mm², exactly one of them`,
       })
     }
+  }
+}
+
+export const leadsSchema = copperPairSchema('Lead', 100)
+  .extend({
+    connectorOhm: quantity('Connector and fuse resistance', {
+      min: 0,
+      max: 1,
+      unit: 'ohm',
+    }).optional(),
   })
+  .superRefine(oneWireSize('lead'))
+
+// ours: 200 m one way covers a long outdoor speaker run; further is a typo or a 100 V line system
+export const speakerLeadsSchema = copperPairSchema('Speaker lead', 200).superRefine(
+  oneWireSize('speaker lead'),
+)
 
 export const amplifierSchema = z
   .object(
@@ -317,22 +344,39 @@ export const programmeSchema = z.object(
   { error: 'Programme is required: crest factor and level (peaks below clipping)' },
 )
 
-export const scheduleSegmentSchema = z.object(
-  {
-    label: text('Segment name', 80),
-    minutes: quantity('Segment length', {
-      min: 0,
-      max: MAX_SCHEDULE_MINUTES,
-      aboveMin: true,
-      unit: 'minutes',
-    }),
-    state: choice('Segment state', SEGMENT_STATES).optional(),
-    peakBelowClipDb: peakBelowClipDb.optional(),
-    crestFactorDb: crestFactorDb.optional(),
-    playingPct: playingPct.optional(),
-  },
-  { error: 'Each schedule segment needs a name and a length in minutes' },
-)
+export const scheduleSegmentSchema = z
+  .object(
+    {
+      label: text('Segment name', 80),
+      minutes: quantity('Segment length', {
+        min: 0,
+        max: MAX_SCHEDULE_MINUTES,
+        aboveMin: true,
+        unit: 'minutes',
+      }),
+      state: choice('Segment state', SEGMENT_STATES).optional(),
+      peakBelowClipDb: peakBelowClipDb.optional(),
+      crestFactorDb: crestFactorDb.optional(),
+      playingPct: playingPct.optional(),
+      /** Power into the pack after the charger, in a 'charging' segment. */
+      chargeW: quantity('Charging power', {
+        min: 0,
+        max: 5000,
+        aboveMin: true,
+        unit: 'W',
+      }).optional(),
+    },
+    { error: 'Each schedule segment needs a name and a length in minutes' },
+  )
+  .superRefine((segment, context) => {
+    if (segment.state === 'charging' && segment.chargeW === undefined) {
+      context.addIssue({
+        code: 'custom',
+        path: ['chargeW'],
+        message: `Segment "${segment.label}" is a charging break: give the charging power into the pack in W`,
+      })
+    }
+  })
 
 export const swapPolicySchema = z.object(
   {
@@ -351,6 +395,7 @@ export const estimateRequestSchema = z
     {
       pack: packSchema,
       leads: leadsSchema.optional(),
+      speakerLeads: speakerLeadsSchema.optional(),
       amplifier: amplifierSchema,
       speakers: speakersSchema,
       accessories: z
@@ -398,6 +443,7 @@ export type EstimateRequest = z.infer<typeof estimateRequestSchema>
 export type EstimateRequestInput = z.input<typeof estimateRequestSchema>
 export type PackSpec = z.infer<typeof packSchema>
 export type LeadsSpec = z.infer<typeof leadsSchema>
+export type SpeakerLeadsSpec = z.infer<typeof speakerLeadsSchema>
 export type AmplifierSpec = z.infer<typeof amplifierSchema>
 export type SpeakersSpec = z.infer<typeof speakersSchema>
 export type AccessorySpec = z.infer<typeof accessorySchema>
@@ -420,6 +466,8 @@ export const warningSchema = z.object({
   code: z.string(),
   message: z.string(),
   severity: z.enum(SEVERITIES),
+  /** The minute of the run the message names, when it names one (a plan shows it on its clock). */
+  atMinute: finite.optional(),
 })
 
 export const timelinePointSchema = z.object({
@@ -427,7 +475,7 @@ export const timelinePointSchema = z.object({
   socPct: finite,
   /** Pack terminal voltage under the load at that moment. */
   voltageV: finite,
-  /** Power out of the pack terminals. */
+  /** Power out of the pack terminals; while charging, minus the power stored in the pack. */
   drawW: finite,
   /** Clip power over the programme's peak power (of the segment, or the request's programme). */
   headroomDb: finite,
@@ -462,6 +510,23 @@ export const packRunSchema = z.object({
   endReason: z.union([z.enum(STOP_REASONS), z.literal('swapped')]),
   musicMinutes: finite,
   lowestSocPct: finite,
+})
+
+/** One segment of the day as planned, with its draw and how loud it is at the listener. */
+export const segmentResultSchema = z.object({
+  label: z.string(),
+  state: z.enum(SEGMENT_STATES),
+  /** Planned start and length: swaps take no time, so the plan's clock is the run's. */
+  startMinute: finite,
+  minutes: finite,
+  /** Average power out of the pack over the segment; negative while charging (power into it). */
+  drawW: finite,
+  /** Equivalent level at the listener over the segment, pauses included (exposure). */
+  splDb: finite.optional(),
+  /** Level while the music plays: what a sound level meter reads then (A-weighted, free field). */
+  playingSplDb: finite.optional(),
+  /** NIOSH permitted time at the segment's equivalent level. */
+  permittedMinutes: finite.optional(),
 })
 
 export const assumedValueSchema = z.object({
@@ -535,8 +600,15 @@ export const estimateResultSchema = z.object({
       swaps: z.array(z.object({ atMinute: finite, pack: z.number().int() })),
       totalMinutes: finite,
       stoppedAtMinute: finite.nullable(),
+      segments: z.array(segmentResultSchema),
+      /** Charge left in the pack in the rig when the run ends. */
+      endSocPct: finite,
+      /** Packs on hand never put in the rig. */
+      sparePacks: z.number().int(),
     })
     .optional(),
+  /** Speaker leads (per channel, round trip) and the share of the amplifier's output they heat. */
+  speakerLeads: z.object({ resistanceOhm: finite, lossPct: finite }),
   pack: z.object({
     label: z.string().optional(),
     nominalV: finite,
@@ -581,4 +653,5 @@ export type EstimateWarning = z.infer<typeof warningSchema>
 export type TimelinePoint = z.infer<typeof timelinePointSchema>
 export type ConverterResult = z.infer<typeof converterResultSchema>
 export type PackRun = z.infer<typeof packRunSchema>
+export type SegmentResult = z.infer<typeof segmentResultSchema>
 export type AssumedValue = z.infer<typeof assumedValueSchema>

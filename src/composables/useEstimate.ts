@@ -33,7 +33,9 @@ function createState(store: RigDraftStore): EstimateState {
     let last: { request: EstimateRequest; result: EstimateResult } | null = null
     const outcome = computed(() => {
       const validation = store.validation
-      if (!validation.success) return { ...last, stale: last !== null, error: null }
+      if (!validation.success || store.unreadable.size > 0) {
+        return { ...last, stale: last !== null, error: null }
+      }
       try {
         last = { request: validation.data, result: estimate(validation.data) }
         return { ...last, stale: false, error: null }
@@ -48,9 +50,10 @@ function createState(store: RigDraftStore): EstimateState {
     const fieldIssues = computed(() => {
       const validation = store.validation
       // The same empty map every time: nothing that shows messages re-renders for a valid change.
-      if (validation.success) return noIssues
-      const issues = new Map<string, string>()
-      for (const issue of validation.error.issues) {
+      if (validation.success && store.unreadable.size === 0) return noIssues
+      // Text that is not a number comes first: it is what the field shows.
+      const issues = new Map<string, string>(store.unreadable)
+      for (const issue of validation.success ? [] : validation.error.issues) {
         const path = issue.path.map(String).join('.')
         // The first message for a field is the one to fix first.
         if (!issues.has(path)) issues.set(path, issue.message)

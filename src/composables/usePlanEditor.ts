@@ -24,7 +24,11 @@ function message(error: unknown, fallback: string): string {
  * shared schema on every change, builds the day's estimate request from the chosen rig, saves
  * (409 when someone saved first), and puts another pack into the rig.
  */
-export function usePlanEditor(planId: Ref<number | null>) {
+export function usePlanEditor(
+  planId: Ref<number | null>,
+  /** For a new plan: the rig to start on (from the bench's "Plan a day with this rig"). */
+  startRigId: Ref<number | null> = ref(null),
+) {
   const { teamId, canEdit } = useTeamAccess()
   const draft = reactive<PlanDraft>(emptyDraft())
   const saved = ref<PlanItem | null>(null)
@@ -57,7 +61,8 @@ export function usePlanEditor(planId: Ref<number | null>) {
       rigs.value = rigList.items
       teamPacks.value = packList.items
       saved.value = plan
-      replaceDraft(plan ? draftFromPlan(plan) : emptyDraft(rigList.items[0]?.id))
+      const startRig = rigList.items.find((item) => item.id === startRigId.value)
+      replaceDraft(plan ? draftFromPlan(plan) : emptyDraft((startRig ?? rigList.items[0])?.id))
     } catch (error) {
       loadError.value =
         error instanceof ApiRequestError && error.status === 404

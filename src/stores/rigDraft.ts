@@ -9,6 +9,7 @@ import {
   type LeadsSpec,
   type PackSpec,
   type ProgrammeSpec,
+  type SpeakerLeadsSpec,
   type SpeakersSpec,
 } from '../../shared/schemas/estimate'
 
@@ -18,10 +19,11 @@ type Editable<T> = { [K in keyof T]?: T[K] | undefined }
 /** The rig as the forms hold it; it becomes an estimate request once the shared schema passes. */
 export interface RigDraft extends Omit<
   EstimateRequest,
-  'pack' | 'leads' | 'amplifier' | 'speakers' | 'accessories' | 'programme'
+  'pack' | 'leads' | 'speakerLeads' | 'amplifier' | 'speakers' | 'accessories' | 'programme'
 > {
   pack: Editable<PackSpec>
   leads?: Editable<LeadsSpec> | undefined
+  speakerLeads?: Editable<SpeakerLeadsSpec> | undefined
   amplifier: Editable<AmplifierSpec>
   speakers: Editable<SpeakersSpec>
   accessories: Editable<AccessorySpec>[]
@@ -103,6 +105,16 @@ export const useRigDraftStore = defineStore('rigDraft', () => {
   const notice = ref<string | null>(restored.message)
 
   const validation = computed(() => estimateRequestSchema.safeParse(draft))
+  /**
+   * Fields whose typed text is not a number (path → message): the draft still holds their last
+   * valid value, so the results are marked as the last valid rig's until the text is fixed.
+   */
+  const unreadable = reactive(new Map<string, string>())
+
+  function markUnreadable(path: string, message: string | null): void {
+    if (message === null) unreadable.delete(path)
+    else unreadable.set(path, message)
+  }
 
   watch([validation, name], ([result]) => {
     if (result.success) persist({ name: name.value, rig: result.data })
@@ -117,7 +129,8 @@ export const useRigDraftStore = defineStore('rigDraft', () => {
       if (!(key in next)) delete fields[key]
     }
     Object.assign(draft, next)
+    unreadable.clear()
   }
 
-  return { draft, name, notice, validation, replace }
+  return { draft, name, notice, validation, unreadable, markUnreadable, replace }
 })

@@ -22,7 +22,20 @@ export interface ScheduleExport {
 
 export const DEFAULT_REMINDER_MINUTES = 10 // ours: time to fetch a pack and change it between songs
 
-const STATE_WORDS = { on: 'playing', idle: 'on, not playing', off: 'off' } as const
+const STATE_WORDS = {
+  on: 'playing',
+  idle: 'on, not playing',
+  off: 'off',
+  charging: 'silent, pack on the charger',
+} as const
+
+/** A segment's state in words; a charging break says the power into the pack. */
+function segmentWords(segment: ScheduleSegment): string {
+  const state = segment.state ?? 'on'
+  return state === 'charging' && segment.chargeW !== undefined
+    ? `${STATE_WORDS.charging} at ${segment.chargeW} W`
+    : STATE_WORDS[state]
+}
 
 interface ScheduleRow {
   minute: number
@@ -39,7 +52,7 @@ function scheduleRows(plan: ScheduleExport): ScheduleRow[] {
   let minute = 0
   for (const segment of plan.schedule) {
     if (plan.stoppedAtMinute !== null && minute > plan.stoppedAtMinute) break
-    const state = STATE_WORDS[segment.state ?? 'on']
+    const state = segmentWords(segment)
     rows.push({
       minute,
       event: 'Segment',
@@ -115,10 +128,7 @@ export function scheduleIcs(
       uid: `${plan.uidPrefix}-day@loudhour`,
       title: plan.planName,
       description: plan.schedule
-        .map(
-          (segment) =>
-            `${segment.label}: ${segment.minutes} min, ${STATE_WORDS[segment.state ?? 'on']}`,
-        )
+        .map((segment) => `${segment.label}: ${segment.minutes} min, ${segmentWords(segment)}`)
         .join('\n'),
       start: dateArray(plan, 0),
       duration: { minutes: Math.max(1, Math.round(totalMinutes)) },

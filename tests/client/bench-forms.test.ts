@@ -81,6 +81,26 @@ describe('the bench forms', { timeout: benchTestTimeoutMs }, () => {
     wrapper.unmount()
   })
 
+  it('counts speaker leads: their resistance and the share of power they heat', async () => {
+    const wrapper = await mountBench()
+    const store = useRigDraftStore()
+    store.draft.speakerLeads = { areaMm2: 1.5, lengthM: 5 }
+    store.draft.temperatureC = 20
+    await flushPromises()
+    await typeInto(wrapper, 'speakerLeads.lengthM', '10')
+    expect(store.draft.speakerLeads?.lengthM).toBe(10)
+    // Source: IEC 60028: 1.5 mm² copper is 11.49 ohm/km at 20 °C, so 2 × 10 m is 0.230 ohm.
+    const summary = plainText(wrapper, '[data-testid="speaker-leads-summary"]')
+    expect(summary).toContain('0.230 Ω out and back per channel')
+    expect(summary).toMatch(/the cable takes \d+(\.\d)? % of the output/)
+    // Two sizes at once is refused at the field, as for the DC lead.
+    await typeInto(wrapper, 'speakerLeads.areaMm2', '0')
+    expect(wrapper.get('[data-testid="message-speakerLeads.areaMm2"]').text()).toMatch(
+      /Speaker lead conductor area/,
+    )
+    wrapper.unmount()
+  })
+
   it('fills the pack form from a library pick and keeps the packs on hand', async () => {
     const wrapper = await mountBench()
     const store = useRigDraftStore()

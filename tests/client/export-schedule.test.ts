@@ -156,3 +156,24 @@ describe('the swap schedule as iCalendar', () => {
     expect(starts).toEqual(['20260613T220000', '20260614T003000'])
   })
 })
+
+describe('a charging break in the exports', () => {
+  it('says the rig is silent and the power going into the pack', () => {
+    // Source: the plan itself: a 45-minute break on a 40 W charger from 10:00
+    const day: ScheduleExport = {
+      ...plan,
+      schedule: [
+        { label: 'Morning', minutes: 120 },
+        { label: 'Car charger', minutes: 45, state: 'charging', chargeW: 40 },
+      ],
+      swaps: [],
+    }
+    const rows = Papa.parse<string[]>(scheduleCsv(day), { skipEmptyLines: true }).data
+    const charging = rows.find((row) => row[4]?.startsWith('Car charger'))
+    expect(charging?.[1]).toBe('10:00')
+    expect(charging?.[4]).toBe('Car charger (silent, pack on the charger at 40 W)')
+    // RFC 5545 §3.1: long lines are folded with CRLF and a space; unfold before reading.
+    const unfolded = scheduleIcs(day).replace(/\r\n[ \t]/g, '')
+    expect(unfolded).toContain('Car charger: 45 min\\, silent\\, pack on the charger at 40 W')
+  })
+})

@@ -108,6 +108,8 @@ describe('the rig bench in Chromium', () => {
     await page.evaluate(() => window.scrollTo(0, 0))
     expect(await seriousAxeViolations(page)).toEqual([])
     await app.browser.screenshot('bench-phone')
+    // On a phone the switches sit in the header's menu.
+    await page.getByTestId('menu-button').click()
     await page.getByRole('button', { name: 'Light mode' }).click()
     expect(app.browser.consoleErrors).toEqual([])
   })

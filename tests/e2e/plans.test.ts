@@ -1,16 +1,11 @@
-import { beforeAll, describe, expect, it } from 'vitest'
+import { describe, expect, it } from 'vitest'
 import { openBrowser, seriousAxeViolations } from '../helpers/browser'
-import { submitSignIn, useAppUnderTest } from '../helpers/e2e-app'
+import { signInBeforeAll, useAppUnderTest } from '../helpers/e2e-app'
 
 // Event plans in Chromium, on the demo seed (design/api.md, "Demo data"; issue 7).
 
 const app = useAppUnderTest()
-beforeAll(async () => {
-  const { page } = app.browser
-  await page.goto(`${app.server.url}/sign-in`)
-  await submitSignIn(page, 'editor@alder-creek.example')
-  await page.waitForURL((url) => !url.pathname.startsWith('/sign-in'))
-})
+signInBeforeAll(app, 'editor@alder-creek.example')
 
 const verdict = () => app.browser.page.getByTestId('plan-lasts')
 

@@ -38,3 +38,13 @@ export async function submitSignIn(
   await page.getByLabel('Password', { exact: true }).fill(password)
   await page.locator('form').getByRole('button', { name: 'Sign in' }).click()
 }
+
+/** Signs the app's browser in as a demo account before the file's tests. */
+export function signInBeforeAll(app: AppUnderTest, email: string): void {
+  beforeAll(async () => {
+    const { page } = app.browser
+    await page.goto(`${app.server.url}/sign-in`)
+    await submitSignIn(page, email)
+    await page.waitForURL((url) => !url.pathname.startsWith('/sign-in'))
+  })
+}

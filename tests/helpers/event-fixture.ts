@@ -41,7 +41,14 @@ export function seedEventFixture(
     eventBodySchema.parse({ ...eventBody, planIds: [planId] }),
   )
   const link = eventLinks.create(
-    { tx: db, ownerId: eventId, userId: ids.userId, nowMs, publicUrl: 'http://localhost:3999' },
+    {
+      tx: db,
+      ownerId: eventId,
+      userId: ids.userId,
+      nowMs,
+      publicUrl: 'http://localhost:3999',
+      eventDate: eventBody.date,
+    },
     { label: 'Volunteers' },
   )
   return {

@@ -9,7 +9,7 @@ export function seedShareLinkFixture(
   nowMs: number,
 ): { linkId: string; token: string } {
   const link = createShareLink(
-    { tx: db, planId, userId, nowMs, publicUrl: 'http://localhost:3999' },
+    { tx: db, planId, planDate: '2026-06-13', userId, nowMs, publicUrl: 'http://localhost:3999' },
     { label: 'Volunteers' },
   )
   return { linkId: String(link.id), token: link.url.split('/shared/')[1] ?? '' }

@@ -45,6 +45,8 @@ describe('e-mailing the card', () => {
     expect(sent.body.sent).toEqual(to)
     const url: string = sent.body.shareLink.url
     expect(url).toMatch(/^http:\/\/localhost:3999\/shared\/[A-Za-z0-9_-]{43}$/)
+    // Without an expiry, the link lasts through the day after the plan's date (13 June 2026).
+    expect(sent.body.shareLink.expiresAt).toBe('2026-06-15T12:00:00.000Z')
 
     const messages = await outbox()
     expect(messages.map((message) => message.to).sort()).toEqual(to)
@@ -68,6 +70,9 @@ describe('e-mailing the card', () => {
       }
       expect(message.text).toContain('SWAP TIMES')
       expect(message.text).toContain('Sam Creek (editor) sent you the runtime card')
+      // Source: the Gregorian calendar: the day after Saturday 13 June 2026 is Sunday the 14th,
+      // and it has ended everywhere (UTC−12) at 12:00 UTC on Monday 15 June
+      expect(message.text).toContain('Its link works until Monday 15 June 2026, 12:00 UTC.')
       expect(message.html).toMatch(/Lithium packs/)
       expect(message.html).toMatch(/follow local codes and licensed practice/)
     }

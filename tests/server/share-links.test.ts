@@ -2,6 +2,8 @@ import { createHash } from 'node:crypto'
 import request from 'supertest'
 import { afterEach, beforeEach, describe, expect, it } from 'vitest'
 import { shareLinks } from '../../server/db/schema-resources'
+import { demoPassword } from '../../server/db/seed'
+import { signInCookie } from '../helpers/accounts'
 import { createCardFixture, tokenOf, type CardFixture } from '../helpers/card-fixture'
 
 // Share links to a plan's card (issue 8; design/api.md: POST|DELETE .../plans/:planId/share-links
@@ -32,7 +34,12 @@ describe('a share link to a plan card', () => {
     const created = await createLink({ label: 'Volunteers' }).expect(201)
     // Source: design/api.md: PUBLIC_URL + the client page of the link
     expect(created.body.url).toMatch(/^http:\/\/localhost:3999\/shared\/[A-Za-z0-9_-]{43}$/)
-    expect(created.body).toMatchObject({ label: 'Volunteers', expiresAt: null })
+    // Source: the Gregorian calendar: the day after Saturday 13 June 2026 (the demo plan's date)
+    // has ended in every time zone (UTC−12) at 12:00 UTC on 15 June
+    expect(created.body).toMatchObject({
+      label: 'Volunteers',
+      expiresAt: '2026-06-15T12:00:00.000Z',
+    })
 
     const plan = await request(fixture.testApp.app)
       .get(fixture.planPath)
@@ -54,6 +61,20 @@ describe('a share link to a plan card', () => {
     expect(text).not.toContain('Alder Creek Market Crew')
     expect(text).not.toContain('Sam Creek')
     expect(text).not.toMatch(/"(id|teamId|planId|rigId)"/)
+  })
+
+  it('lasts until revoked when asked to, and a week for a plan whose day is past', async () => {
+    const untilRevoked = await createLink({ expiresAt: null }).expect(201)
+    expect(untilRevoked.body.expiresAt).toBeNull()
+    // Past the day after the event (15 June 12:00 UTC), a new link gets 7 days from now.
+    fixture.advanceMs(20 * 24 * hourMs)
+    const cookie = await signInCookie(
+      fixture.testApp.app,
+      'editor@alder-creek.example',
+      demoPassword,
+    )
+    const late = await createLink({}, cookie).expect(201)
+    expect(Date.parse(late.body.expiresAt)).toBe(fixture.nowMs() + 7 * 24 * hourMs)
   })
 
   it('keeps only the SHA-256 of a token of at least 128 bits', async () => {

@@ -89,6 +89,10 @@ describe('the runtime card of a plan', () => {
       'Bring 3 charged packs: the 2 packs in the plan do not last the day.',
     )
     expect(card.warnings.map((warning) => warning.code)).toContain('schedule-short')
+    // The card of a plan names the moment on the event clock, as the headline does.
+    expect(card.warnings.find((warning) => warning.code === 'schedule-short')?.message).toMatch(
+      /^The rig stops at about 18:00, 2 h 00 min before the schedule ends/,
+    )
   })
 
   it('keeps the dangers and cautions, dangers first, and leaves the info notes on the bench', () => {
@@ -166,5 +170,56 @@ describe('the runtime card of a rig alone', () => {
     expect(card.swaps).toHaveLength(1)
     expect(card.swaps[0]!.atLabel).toBe('after 5 h 00 min')
     expect(card.packs.bringCharged).toBe(2)
+  })
+})
+
+describe('the meter readings on the card', () => {
+  function marketDay(listenerDistanceM: number) {
+    return variant(columnRig(), {
+      listenerDistanceM,
+      schedule: [
+        { label: 'Speeches', minutes: 30, peakBelowClipDb: 12, playingPct: 50 },
+        { label: 'Lunch on the car charger', minutes: 60, state: 'charging', chargeW: 40 },
+        { label: 'Band set', minutes: 60, peakBelowClipDb: 6 },
+        { label: 'Finale', minutes: 15, peakBelowClipDb: 0 },
+      ],
+    })
+  }
+  const cardAt = (distanceM: number) =>
+    planCard(marketDay(distanceM), { date: '2026-06-13', startTime: '10:00' })
+  const reading = (meter: string | null) => Number(/about (\d+) dBA/.exec(meter ?? '')?.[1])
+
+  it('says what a meter should read in each segment with music, at the audience', () => {
+    const card = cardAt(10)
+    const [speeches, lunch, band, finale] = card.segments
+    expect(speeches!.meter).toMatch(/^Meter about \d+ dBA$/)
+    expect(lunch!.meter).toBeNull()
+    expect(lunch!.activity).toBe('Rig silent; its pack on the charger (40 W into it)')
+    // Source: decibel arithmetic: peaks 6 dB nearer clipping at a fixed volume is 6 dB more on
+    // the meter (whole dB after rounding each)
+    expect(Math.abs(reading(finale!.meter) - reading(band!.meter) - 6)).toBeLessThanOrEqual(1)
+  })
+
+  it('reads about 10.5 dB less at 10 m than at 3 m', () => {
+    // Source: inverse-square law in free field: 20·log10(10/3) = 10.46 dB (each reading rounded)
+    const near = cardAt(3).segments[3]!
+    const far = cardAt(10).segments[3]!
+    expect([10, 11]).toContain(reading(near.meter) - reading(far.meter))
+  })
+
+  it('tells the crew to set the level by meter, and that the readings are estimates', () => {
+    // Source: IEC 61672-1 (A-weighting, slow time weighting of sound level meters)
+    const card = cardAt(10)
+    expect(card.meterNote).toMatch(/A-weighted, slow/)
+    expect(card.meterNote).toMatch(/free-field estimates/)
+    expect(card.meterNote).toMatch(/10 m/)
+    // A day that charges at a break gets the charging caution with the battery one.
+    expect(card.cautions.find((caution) => caution.topic === 'battery')?.text).toMatch(
+      /Charging at a break/,
+    )
+    // A silent day has no readings to give.
+    const silent = planCard(steadyDay(3), { date: '2026-06-13', startTime: '08:00' })
+    expect(silent.meterNote).toBeNull()
+    expect(silent.segments.every((segment) => segment.meter === null)).toBe(true)
   })
 })

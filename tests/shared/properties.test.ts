@@ -221,7 +221,8 @@ describe('engine properties', { timeout: 30_000 }, () => {
   })
 
   it('never raises the state of charge while a pack is in use', () => {
-    // Source: engine.md §7: charge only leaves a pack during a run (no charging is modelled)
+    // Source: engine.md §7: charge only leaves a pack during a run (these inputs have no
+    // charging break)
     fc.assert(
       fc.property(requestArbitrary, (request) => {
         const { timeline } = estimate(request)
@@ -234,6 +235,64 @@ describe('engine properties', { timeout: 30_000 }, () => {
           expect(point.minute).toBeGreaterThanOrEqual(previous.minute)
         }
       }),
+      params,
+    )
+  })
+
+  it('never shortens a day with a charging break in place of a switched-off one', () => {
+    // Source: conservation of charge: a pack that gains charge at a break has at least as much
+    // left for what follows, at every moment after it
+    fc.assert(
+      fc.property(
+        requestArbitrary.filter((request) => request.schedule !== undefined),
+        fc.double({ min: 1, max: 300, noNaN: true }),
+        (request, chargeW) => {
+          const charged = {
+            ...request,
+            schedule: request.schedule!.map((segment) =>
+              segment.state === 'off'
+                ? { ...segment, state: 'charging' as const, chargeW }
+                : segment,
+            ),
+          }
+          const plain = estimate(request)
+          const result = estimate(charged)
+          expect(allFinite(result)).toBe(true)
+          expect(result.runtimeHours).toBeGreaterThanOrEqual(plain.runtimeHours - 1e-9)
+          if (plain.schedule!.lasts) expect(result.schedule!.lasts).toBe(true)
+        },
+      ),
+      params,
+    )
+  })
+
+  it('never raises the level with a longer speaker lead', () => {
+    // Source: Ohm's law: more cable resistance in series with the load leaves the speakers a
+    // smaller share, Z/(Z + R), of a smaller output
+    fc.assert(
+      fc.property(
+        requestArbitrary,
+        fc.integer({ min: 10, max: 24 }),
+        fc.double({ min: 0.5, max: 50, noNaN: true }),
+        fc.double({ min: 1.01, max: 4, noNaN: true }),
+        (request, awg, lengthM, factor) => {
+          const short = estimate({ ...request, speakerLeads: { awg, lengthM } })
+          const long = estimate({ ...request, speakerLeads: { awg, lengthM: lengthM * factor } })
+          expect(allFinite(long)).toBe(true)
+          expect(long.speakerLeads.lossPct).toBeGreaterThan(short.speakerLeads.lossPct)
+          // No music playing, no level (then neither has one).
+          expect(long.splDb === undefined).toBe(short.splDb === undefined)
+          if (long.splDb && short.splDb) {
+            expect(long.splDb.average).toBeLessThanOrEqual(short.splDb.average + 1e-9)
+            expect(long.splDb.peak).toBeLessThanOrEqual(short.splDb.peak + 1e-9)
+          }
+          const shortSegments = short.schedule?.segments ?? []
+          long.schedule?.segments.forEach((segment, index) => {
+            if (segment.splDb !== undefined)
+              expect(segment.splDb).toBeLessThanOrEqual(shortSegments[index]!.splDb! + 1e-9)
+          })
+        },
+      ),
       params,
     )
   })

@@ -63,3 +63,12 @@ export function constantCurrentRig(
     ...extra,
   } satisfies RequestInput)
 }
+
+/** A 4S4P pack of 2.5 Ah li-ion cells: 10 Ah with no rate effect, so hand sums in Ah apply. */
+export const TEN_AH_PACK = {
+  chemistry: 'li-ion',
+  seriesCells: 4,
+  parallelCells: 4,
+  cellCapacityAh: 2.5,
+  peukertExponent: 1,
+} as const satisfies RequestInput['pack']

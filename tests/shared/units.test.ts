@@ -6,7 +6,9 @@ import {
   celsiusToFahrenheit,
   fahrenheitToCelsius,
   feetToMetres,
+  kilogramsToPounds,
   metresToFeet,
+  poundsToKilograms,
 } from '../../shared/units'
 
 describe('units', () => {
@@ -14,6 +16,14 @@ describe('units', () => {
     // Source: international yard and pound agreement (1959): 1 ft = 0.3048 m exactly
     expect(feetToMetres(1)).toBe(0.3048)
     expect(metresToFeet(3.048)).toBeCloseTo(10, 12)
+  })
+
+  it('converts kilograms and pounds', () => {
+    // Source: international yard and pound agreement (1959): 1 lb = 0.45359237 kg exactly
+    expect(poundsToKilograms(1)).toBe(0.45359237)
+    expect(kilogramsToPounds(0.45359237)).toBe(1)
+    // A 0.95 kg tool pack weighs about 2.09 lb
+    expect(kilogramsToPounds(0.95)).toBeCloseTo(2.0944, 4)
   })
 
   it('converts degrees Celsius and Fahrenheit', () => {

@@ -5,7 +5,9 @@ import {
   celsiusToFahrenheit,
   fahrenheitToCelsius,
   feetToMetres,
+  kilogramsToPounds,
   metresToFeet,
+  poundsToKilograms,
 } from '../../../shared/units'
 import { usePreferencesStore } from '@/stores/preferences'
 import { formatNumber, withUnit } from './format'
@@ -58,6 +60,29 @@ export const percentOfOne: DisplayQuantity = {
   toDisplay: (fraction) => fraction * 100,
   fromDisplay: (percent) => percent / 100,
   decimals: 0,
+}
+
+const imperialNow = () => usePreferencesStore().units === 'imperial'
+
+/**
+ * Masses in the units of the header's switch, wherever they are shown or typed: pounds in
+ * imperial, kilograms in metric. Read at use, so a static table of fields (the parts forms)
+ * follows the switch too.
+ */
+export const mass: DisplayQuantity = {
+  get unit() {
+    return imperialNow() ? 'lb' : 'kg'
+  },
+  toDisplay: (massKg) => (imperialNow() ? kilogramsToPounds(massKg) : massKg),
+  fromDisplay: (shown) => (imperialNow() ? poundsToKilograms(shown) : shown),
+  decimals: 2,
+}
+
+/** Energy per mass in the same units: Wh/lb in imperial, Wh/kg in metric. */
+export function energyPerMassText(whPerKg: number): string {
+  return imperialNow()
+    ? withUnit(formatNumber(whPerKg * poundsToKilograms(1), 0), 'Wh/lb') // kg in one lb
+    : withUnit(formatNumber(whPerKg, 0), 'Wh/kg')
 }
 
 /** The AWG name of a gauge: 0 is "1/0", −1 is "2/0" (ASTM B258 numbering). */

@@ -39,3 +39,30 @@ export function forgetShareUrl(linkId: number): void {
   delete all[String(linkId)]
   writeAll(all)
 }
+
+// Which link's QR code a plan's card shows, as chosen in this browser: it changes only when the
+// user picks another link (or makes the first one), never because a link was e-mailed.
+const qrStorageKey = 'loudhour.card-qr.v1'
+
+function readChoices(): Record<string, number> {
+  try {
+    const parsed: unknown = JSON.parse(localStorage.getItem(qrStorageKey) ?? '{}')
+    return parsed && typeof parsed === 'object' ? (parsed as Record<string, number>) : {}
+  } catch {
+    return {}
+  }
+}
+
+/** The link chosen for the plan's QR code, or null when none was chosen here. */
+export function chosenQrLink(planId: number): number | null {
+  const chosen = readChoices()[String(planId)]
+  return typeof chosen === 'number' ? chosen : null
+}
+
+export function chooseQrLink(planId: number, linkId: number): void {
+  try {
+    localStorage.setItem(qrStorageKey, JSON.stringify({ ...readChoices(), [planId]: linkId }))
+  } catch {
+    // Storage refused: the choice lasts while the page is open.
+  }
+}

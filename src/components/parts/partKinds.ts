@@ -1,5 +1,6 @@
 import type { z } from 'zod'
 import {
+  mass,
   milliOhm,
   percentOfOne,
   showQuantity,
@@ -111,7 +112,7 @@ export const partKinds: PartKind[] = [
       { key: 'maxDischargeA', label: 'Max continuous discharge', type: 'number', unit: 'A' },
       { key: 'peukertExponent', label: 'Peukert exponent', type: 'number' },
       { key: 'count', label: 'Packs on hand', type: 'whole' },
-      { key: 'massKg', label: 'Mass', type: 'number', unit: 'kg' },
+      { key: 'massKg', label: 'Mass', type: 'number', quantity: mass },
       { key: 'price', label: 'Price', type: 'number' },
     ],
     columns: ['chemistry', 'seriesCells', 'parallelCells', 'cellCapacityAh', 'massKg'],

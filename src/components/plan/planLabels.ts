@@ -6,4 +6,5 @@ export const stateLabels: Record<SegmentState, string> = {
   on: 'Playing',
   idle: 'On, silent',
   off: 'Switched off',
+  charging: 'Charging',
 }
