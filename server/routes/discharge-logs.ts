@@ -11,8 +11,8 @@ import { ApiError, parseInput } from '../http/errors'
 import { rowIdParam } from '../http/params'
 import { itemMeta, peopleOf } from '../resources/owned-table'
 import type { ResourceContext } from '../resources/resource-definition'
-import { packDefinition } from './packs'
-import { carryPackHealthToRigs } from './rigs'
+import { packDefinition } from '../resources/packs'
+import { carryPackHealthToRigs } from '../resources/rigs'
 import {
   DISCHARGE_LOG_FIELD,
   acceptDischargeLogSchema,

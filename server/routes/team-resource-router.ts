@@ -12,7 +12,7 @@ import {
   type SavedItemMeta,
   type SortField,
 } from '../../shared/schemas/resources'
-import { itemMeta, peopleOf, type OwnedRow, type OwnedTable } from './owned-table'
+import { itemMeta, peopleOf, type OwnedRow, type OwnedTable } from '../resources/owned-table'
 import {
   insertOwnedItem,
   ownedColumnsOf,
@@ -20,7 +20,7 @@ import {
   type ResourceContext,
   type ResourceDefinition,
   type WriteScope,
-} from './resource-definition'
+} from '../resources/resource-definition'
 
 /*
  * The one way to serve a team-owned, versioned resource (api.md, "Team-owned resources"):
