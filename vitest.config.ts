@@ -32,6 +32,8 @@ export default mergeConfig(
             pool: 'threads',
             isolate: false,
             testTimeout: 20_000,
+            // The first fixture of a worker hashes a password (argon2) and migrates a database.
+            hookTimeout: 20_000,
           },
         },
         {

@@ -2,6 +2,7 @@ import { and, eq } from 'drizzle-orm'
 import type { Queryable } from '../db/queryable'
 import { plans, rigs } from '../db/schema-resources'
 import { ApiError, issuesFromZod } from '../http/errors'
+import { ownedRowsOf } from './owned-table'
 import { summarisePlan } from './summaries'
 import type { ResourceDefinition, WriteScope } from './resource-definition'
 import { planEstimateRequest, type PlanRunFields } from '../../shared/plans/request'
@@ -85,12 +86,13 @@ function rigNameOf(tx: Queryable, rigId: number): string {
 
 /** Event plans: `/api/v1/teams/:teamId/plans`. The server runs the day at every save. */
 export const planDefinition: ResourceDefinition<typeof plans, PlanBody, PlanItem> = {
-  table: plans,
+  rows: ownedRowsOf(plans),
   noun: 'plan',
   idParam: 'planId',
   createSchema: planBodySchema,
   updateSchema: planUpdateSchema,
-  columns: (body) => ({
+  values: (body, owned) => ({
+    ...owned,
     rigId: body.rigId,
     date: body.date,
     startTime: body.startTime,

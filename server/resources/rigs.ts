@@ -10,6 +10,7 @@ import {
   speakers,
 } from '../db/schema-resources'
 import { ApiError, type FieldIssue } from '../http/errors'
+import { ownedRowsOf } from './owned-table'
 import { summariseRig } from './summaries'
 import { recomputePlansOfRig } from './plans'
 import type { ResourceDefinition, WriteScope } from './resource-definition'
@@ -110,14 +111,15 @@ export function carryPackHealthToRigs(
 
 /** Saved rigs: `/api/v1/teams/:teamId/rigs`. The server runs the engine at every save. */
 export const rigDefinition: ResourceDefinition<typeof rigs, RigBody, RigItem> = {
-  table: rigs,
+  rows: ownedRowsOf(rigs),
   noun: 'rig',
   idParam: 'rigId',
   createSchema: rigBodySchema,
   updateSchema: rigUpdateSchema,
-  columns: (body) => {
+  values: (body, owned) => {
     const summary = summariseRig(body.spec)
     return {
+      ...owned,
       spec: body.spec,
       specSchemaVersion: RIG_SPEC_SCHEMA_VERSION,
       summary,
