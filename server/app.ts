@@ -11,6 +11,8 @@ import type { Mailer } from './mail/mailer'
 import type { DatabaseHandle } from './db/client'
 import type { Env } from './env'
 import { apiNotFound, errorHandler } from './http/errors'
+import { createLogger, requestLog, type Logger } from './http/log'
+import { noStore } from './http/no-store'
 import { staticClient } from './http/static-client'
 import { healthRouter } from './routes/health'
 import { estimateRouter } from './routes/estimate'
@@ -34,6 +36,9 @@ export interface AppDependencies {
   clock?: Clock
   /** Where the built client lives; tests leave it out and get the API alone. */
   distDir?: string
+  /** The request and event log; by default pino on stdout at LOG_LEVEL. */
+  logger?: Logger
+  /** Where unexpected errors (500s) go; by default the logger. */
   log?: (error: unknown) => void
 }
 
@@ -46,7 +51,8 @@ const jsonBodyLimit = '256kb'
 /** Builds the whole HTTP application from its dependencies; `index.ts` only makes it listen. */
 export function createApp(deps: AppDependencies): Express {
   const { env, database, mail } = deps
-  const log = deps.log ?? ((error: unknown) => console.error(error))
+  const logger = deps.logger ?? createLogger(env.LOG_LEVEL)
+  const log = deps.log ?? ((error: unknown) => logger.error({ err: error }, 'unexpected error'))
   const clock = deps.clock ?? systemClock
   const accounts: AccountsContext = {
     db: database.db,
@@ -59,7 +65,9 @@ export function createApp(deps: AppDependencies): Express {
   }
   const app = express()
   app.disable('x-powered-by')
-  app.set('trust proxy', false)
+  // req.ip (rate limits, logs) is the client behind the proxies TRUST_PROXY names, if any.
+  app.set('trust proxy', env.TRUST_PROXY)
+  app.use(requestLog(logger))
   app.use(
     helmet({
       contentSecurityPolicy: {
@@ -83,6 +91,7 @@ export function createApp(deps: AppDependencies): Express {
   )
 
   const api = express.Router()
+  api.use(noStore)
   // Before anything that could change state: cross-site writes stop here (see same-origin.ts).
   api.use(sameOrigin(env.PUBLIC_URL))
   api.use(express.json({ limit: jsonBodyLimit }))

@@ -1,9 +1,50 @@
+import { isIP } from 'node:net'
 import { z } from 'zod'
 
 // The one place that reads process.env: everything else receives the parsed settings.
 const booleanFlag = z
   .enum(['1', '0', 'true', 'false', 'yes', 'no', 'on', 'off'])
   .transform((value) => ['1', 'true', 'yes', 'on'].includes(value))
+
+// Express's `trust proxy` names for address ranges (see proxy-addr, which Express uses).
+const proxyRangeNames = ['loopback', 'linklocal', 'uniquelocal']
+
+/** An address, an address with a /prefix or netmask, or one of Express's range names. */
+function isProxyAddress(entry: string): boolean {
+  if (proxyRangeNames.includes(entry)) return true
+  const [address = '', prefix, ...rest] = entry.split('/')
+  if (rest.length > 0 || isIP(address) === 0) return false
+  if (prefix === undefined) return true
+  return /^\d{1,3}$/.test(prefix) || isIP(prefix) === 4
+}
+
+/*
+ * TRUST_PROXY is Express's `trust proxy` value: unset or "false" trusts no proxy (req.ip is the
+ * socket's address); a whole number trusts that many hops; otherwise a comma-separated list of
+ * proxy addresses, subnets or the names loopback, linklocal, uniquelocal. "true" trusts every
+ * hop, which lets any client choose its own address: only behind a proxy that overwrites
+ * X-Forwarded-For.
+ */
+const trustProxy = z
+  .string()
+  .trim()
+  .transform((value, context): boolean | number | string[] => {
+    if (value === 'false') return false
+    if (value === 'true') return true
+    if (/^\d+$/.test(value)) return Number(value)
+    const entries = value.split(',').map((entry) => entry.trim())
+    const bad = entries.filter((entry) => !isProxyAddress(entry))
+    if (bad.length > 0) {
+      context.addIssue({
+        code: 'custom',
+        message: `TRUST_PROXY must be true, false, a number of hops, or addresses, subnets, loopback, linklocal or uniquelocal separated by commas (not understood: ${bad.join(', ')})`,
+      })
+      return z.NEVER
+    }
+    return entries
+  })
+
+const logLevels = ['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent'] as const
 
 const envSchema = z
   .object({
@@ -32,10 +73,17 @@ const envSchema = z
     MAIL_FROM: z.string().min(3).default('Loudhour <no-reply@loudhour.invalid>'),
     // Seed the demo teams, users, rigs and plans into an empty database (the embedded default).
     LOUDHOUR_DEMO: booleanFlag.default(true),
+    TRUST_PROXY: trustProxy.default(false),
+    // The request and security-event log on stdout (pino, one JSON object a line).
+    LOG_LEVEL: z
+      .enum(logLevels, { message: `LOG_LEVEL must be one of ${logLevels.join(', ')}` })
+      .optional(),
   })
   .transform((env) => ({
     ...env,
     PUBLIC_URL: (env.PUBLIC_URL ?? `http://localhost:${env.PORT}`).replace(/\/+$/, ''),
+    // Tests stay quiet unless they ask for the log.
+    LOG_LEVEL: env.LOG_LEVEL ?? (env.NODE_ENV === 'test' ? 'silent' : 'info'),
   }))
 
 export type Env = z.infer<typeof envSchema>

@@ -1,4 +1,3 @@
-import { mkdirSync } from 'node:fs'
 import { join, resolve } from 'node:path'
 import { createApp } from './app'
 import { openDatabase } from './db/client'
@@ -10,10 +9,14 @@ import { createMailer } from './mail/mailer'
 import { preparePasswordChecks } from './auth/passwords'
 import { demoSignIns, seedDemo } from './db/seed'
 import { systemClock } from './clock'
+import { ownerOnlyDir } from './owner-only'
+import { stopLogParsers } from './discharge/parse-pool'
 
 const env = readEnv()
+// Whatever this process writes (the database, mail kept by the catcher) is the owner's alone.
+process.umask(0o077)
 const dataDir = resolve(env.LOUDHOUR_DATA_DIR)
-mkdirSync(dataDir, { recursive: true })
+ownerOnlyDir(dataDir)
 
 const sessionSecret = resolveSessionSecret(dataDir, env.SESSION_SECRET)
 const database = openDatabase(join(dataDir, 'loudhour.db'))
@@ -67,7 +70,7 @@ function shutdown(signal: string): void {
   stopping = true
   console.log(`${signal} received: closing connections`)
   server.close(() => {
-    void mail.close().finally(() => {
+    void Promise.allSettled([mail.close(), stopLogParsers()]).finally(() => {
       database.sqlite.close()
       process.exit(0)
     })

@@ -1,6 +1,7 @@
 import { randomBytes } from 'node:crypto'
 import { existsSync, readFileSync, writeFileSync } from 'node:fs'
 import { join } from 'node:path'
+import { ownerOnlyFileMode, tightenIfPresent } from './owner-only'
 
 const secretFileName = 'session-secret'
 // jose HS256 keys shorter than the hash output weaken the MAC (RFC 7518 §3.2 asks for ≥ 256 bits).
@@ -13,9 +14,12 @@ export const minimumSecretBytes = 32
 export function resolveSessionSecret(dataDir: string, configured: string | undefined): string {
   if (configured) return assertLongEnough(configured, 'SESSION_SECRET')
   const file = join(dataDir, secretFileName)
-  if (existsSync(file)) return assertLongEnough(readFileSync(file, 'utf8').trim(), file)
+  if (existsSync(file)) {
+    tightenIfPresent(file)
+    return assertLongEnough(readFileSync(file, 'utf8').trim(), file)
+  }
   const secret = randomBytes(48).toString('base64url')
-  writeFileSync(file, secret + '\n', { mode: 0o600 })
+  writeFileSync(file, secret + '\n', { mode: ownerOnlyFileMode })
   return secret
 }
 

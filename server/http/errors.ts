@@ -1,5 +1,6 @@
 import type { ErrorRequestHandler, RequestHandler } from 'express'
 import { z } from 'zod'
+import { securityEvent } from './log'
 
 export interface FieldIssue {
   path: string
@@ -82,8 +83,11 @@ function fromHttpLibrary(error: HttpLibraryError): ApiError | undefined {
   }
 }
 
+// Signed out, not allowed, throttled: the answers an operator watches for probing.
+const refusalStatuses = new Set([401, 403, 429])
+
 export function errorHandler(options: { exposeStack: boolean; log: (error: unknown) => void }) {
-  const handler: ErrorRequestHandler = (error: unknown, _req, res, next) => {
+  const handler: ErrorRequestHandler = (error: unknown, req, res, next) => {
     if (res.headersSent) return next(error)
     const known =
       error instanceof ApiError
@@ -94,6 +98,8 @@ export function errorHandler(options: { exposeStack: boolean; log: (error: unkno
             ? fromHttpLibrary(error as HttpLibraryError)
             : undefined
     if (known) {
+      if (refusalStatuses.has(known.status))
+        securityEvent(req, 'request-refused', { status: known.status, code: known.code })
       for (const [name, value] of Object.entries(known.headers ?? {})) res.setHeader(name, value)
       res.status(known.status).json({
         error: {

@@ -24,7 +24,8 @@ import { hashPassword, verifyPassword } from '../auth/passwords'
 import { requireUser, signedInUser } from '../auth/require'
 import { users } from '../db/schema'
 import { ApiError, parseInput } from '../http/errors'
-import { hourMs, throttle } from '../http/throttle'
+import { securityEvent } from '../http/log'
+import { addressKey, delayAfterFailures, hourMs, throttle } from '../http/throttle'
 import { linkTo, passwordResetMail } from '../mail/templates'
 
 const quarterHourMs = 15 * 60 * 1000
@@ -35,8 +36,16 @@ function bodyEmail(req: Request): string | undefined {
   return parsed.success ? `account:${parsed.data}` : undefined
 }
 
-// OWASP Authentication Cheat Sheet: throttle failed sign-ins per account and per source. Ten
-// wrong passwords per quarter hour per account keeps an online guesser to ~1,000 tries a day.
+function accountAtAddress(req: Request): string | undefined {
+  const account = bodyEmail(req)
+  return account && `${account}|${addressKey(req)}`
+}
+
+// OWASP Authentication Cheat Sheet ("Login Throttling"): count failures per source and per
+// account, and prefer delays to lockouts. Refusals (429) are per address and per account-and-
+// address, so wrong passwords from elsewhere never stop the owner signing in from theirs; across
+// all addresses an account is only slowed. A school behind one address signs in its whole staff:
+// correct passwords are not counted at all.
 const signInThrottles = () => [
   throttle({
     name: 'sign_in_address',
@@ -46,16 +55,39 @@ const signInThrottles = () => [
     countFailuresOnly: true,
     message: 'Too many failed sign-ins from this address. Wait a few minutes and try again.',
   }),
+  // Ten wrong passwords per quarter hour per account and address: ~1,000 guesses a day at most.
   throttle({
-    name: 'sign_in_account',
+    name: 'sign_in_account_address',
     windowMs: quarterHourMs,
     limit: 10,
-    key: bodyEmail,
+    key: accountAtAddress,
     countFailuresOnly: true,
     message:
-      'Too many failed sign-ins for this account. Wait a few minutes, or reset the password.',
+      'Too many failed sign-ins for this account from here. Wait a few minutes, or reset the password.',
+  }),
+  // Guesses spread over many addresses: from the 11th failure on, each attempt waits 0.5 s more,
+  // at most 5 s (the owner's correct password still gets through, a little later).
+  delayAfterFailures({
+    name: 'sign_in_account',
+    windowMs: quarterHourMs,
+    freeFailures: 10,
+    stepMs: 500,
+    maxDelayMs: 5000,
+    key: bodyEmail,
   }),
 ]
+
+// Guesses at the current password from a session someone else holds: five per quarter hour.
+const passwordChangeThrottle = () =>
+  throttle({
+    name: 'password_change_account',
+    windowMs: quarterHourMs,
+    limit: 5,
+    key: (req) => (req.auth ? `user:${req.auth.user.id}` : undefined),
+    countFailuresOnly: true,
+    message:
+      'Too many wrong current passwords. Wait a few minutes, or sign out and reset the password.',
+  })
 
 // Reset requests send mail: keep one address from flooding an inbox or the mail server.
 const resetThrottles = () => [
@@ -128,7 +160,11 @@ export function authRouter(context: AccountsContext): Router {
     const input = parseInput(signInSchema, req.body)
     const user = findUserByEmail(db, input.email)
     const matches = await verifyPassword(user?.passwordHash, input.password)
-    if (!user || !matches) throw wrongCredentials()
+    if (!user || !matches) {
+      // The account only: a typed address may be a password typed into the wrong field.
+      securityEvent(req, 'sign-in-failed', { accountId: user?.id ?? null })
+      throw wrongCredentials()
+    }
     await signIn(context, res, user.id)
     res.json(meResponse(context, user.id))
   })
@@ -165,7 +201,7 @@ export function authRouter(context: AccountsContext): Router {
   })
 
   // Changing the password ends every session, this one included, then signs this browser in again.
-  router.post('/password', requireUser, async (req, res) => {
+  router.post('/password', requireUser, passwordChangeThrottle(), async (req, res) => {
     const { user } = signedInUser(req)
     const input = parseInput(passwordChangeSchema, req.body)
     const stored = findUserById(db, user.id)
@@ -177,6 +213,7 @@ export function authRouter(context: AccountsContext): Router {
     }
     assertPasswordStrong(input.newPassword, [user.email, user.name], 'newPassword')
     replacePassword(db, user.id, await hashPassword(input.newPassword), clock().getTime())
+    securityEvent(req, 'password-changed')
     await signIn(context, res, user.id)
     res.json(meResponse(context, user.id))
   })
@@ -186,6 +223,7 @@ export function authRouter(context: AccountsContext): Router {
   router.post('/password-reset', ...resetThrottles(), (req, res) => {
     const input = parseInput(passwordResetRequestSchema, req.body)
     const user = findUserByEmail(db, input.email)
+    securityEvent(req, 'password-reset-requested', { accountId: user?.id ?? null })
     if (user) {
       const token = issuePasswordReset(db, user.id, clock().getTime())
       mail.sendInBackground(
@@ -207,6 +245,7 @@ export function authRouter(context: AccountsContext): Router {
     const passwordHash = await hashPassword(input.password)
     if (!completePasswordReset(db, reset, passwordHash, clock().getTime()))
       throw invalidLinkToken('reset')
+    securityEvent(req, 'password-reset-completed', { accountId: reset.userId })
     res.status(204).end()
   })
 

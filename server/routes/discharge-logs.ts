@@ -4,10 +4,12 @@ import { requireTeamRole, signedInUser, teamMembership } from '../auth/require'
 import type { Queryable } from '../db/queryable'
 import { users } from '../db/schema'
 import { dischargeLogs, packs } from '../db/schema-resources'
-import { decodeLogBytes, parseDischargeCsv } from '../discharge/parse-log'
+import { parseLogOffThread } from '../discharge/parse-pool'
 import { storedAnalysis } from '../discharge/stored-analysis'
 import { receiveLogFile } from '../discharge/upload'
+import { limitConcurrent } from '../http/concurrency'
 import { ApiError, parseInput } from '../http/errors'
+import { securityEvent } from '../http/log'
 import { rowIdParam } from '../http/params'
 import { itemMeta, peopleOf } from '../resources/owned-table'
 import type { ResourceContext } from '../resources/resource-definition'
@@ -115,8 +117,17 @@ function packItemOf(tx: Queryable, row: PackRow): PackItem {
 // The pack's health figure is kept to one decimal, as it is typed in the pack form.
 const roundHealthPct = (value: number) => Math.round(value * 10) / 10
 
+// Two uploads in progress per account: enough for a second tab, not enough to crowd out others.
+const uploadsPerAccount = 2
+
 export function dischargeLogsRouter(context: ResourceContext): Router {
   const { db, clock } = context
+  const uploadSlots = limitConcurrent({
+    limit: uploadsPerAccount,
+    key: (req) => (req.auth ? `user:${req.auth.user.id}` : undefined),
+    message: `At most ${uploadsPerAccount} logs upload at once for one account. Wait for one to finish, then send this one again.`,
+    retryAfterS: 5,
+  })
   const router = Router({ mergeParams: true })
   const packIdOf = (req: Request) => rowIdParam(req, 'packId', packNotFound)
   const logIdOf = (req: Request) => rowIdParam(req, 'logId', logNotFound)
@@ -130,8 +141,9 @@ export function dischargeLogsRouter(context: ResourceContext): Router {
       requirePack(db, teamIdOf(req), packIdOf(req))
       next()
     },
+    uploadSlots,
     receiveLogFile,
-    (req, res) => {
+    async (req, res) => {
       const teamId = teamIdOf(req)
       const packId = packIdOf(req)
       const file = req.file
@@ -143,7 +155,7 @@ export function dischargeLogsRouter(context: ResourceContext): Router {
           [{ path: DISCHARGE_LOG_FIELD, message: 'Choose a CSV file' }],
         )
       }
-      const samples = parseDischargeCsv(decodeLogBytes(file.buffer))
+      const samples = await parseLogOffThread(file.buffer)
       const nowMs = clock().getTime()
       const userId = signedInUser(req).user.id
       const created = db.transaction((tx) => {
@@ -161,6 +173,12 @@ export function dischargeLogsRouter(context: ResourceContext): Router {
           .returning({ id: dischargeLogs.id })
           .get()
         return requireLog(tx, teamId, packId, id)
+      })
+      securityEvent(req, 'discharge-log-uploaded', {
+        teamId,
+        packId,
+        logId: created.log.id,
+        bytes: file.size,
       })
       res.status(201).json(detailOf(created))
     },

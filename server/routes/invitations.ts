@@ -3,6 +3,7 @@ import { invitationTokenSchema } from '../../shared/schemas/teams'
 import type { AccountsContext } from '../auth/context'
 import { requireUser, signedInUser } from '../auth/require'
 import { parseInput } from '../http/errors'
+import { securityEvent } from '../http/log'
 import { acceptInvitation, previewInvitation } from '../teams/invitations'
 
 /** The invitee's side of an invitation: `/api/v1/invitations`. */
@@ -19,6 +20,7 @@ export function invitationsRouter(context: AccountsContext): Router {
   router.post('/accept', requireUser, (req, res) => {
     const { token } = parseInput(invitationTokenSchema, req.body)
     const team = acceptInvitation(db, token, signedInUser(req).user, clock().getTime())
+    securityEvent(req, 'invitation-accepted', { teamId: team.id, role: team.role })
     res.json({ team })
   })
 

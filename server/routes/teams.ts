@@ -13,6 +13,7 @@ import { requireTeamRole, requireUser, signedInUser, teamMembership } from '../a
 import { teamsOf } from '../auth/memberships'
 import { teams } from '../db/schema'
 import { ApiError, parseInput } from '../http/errors'
+import { securityEvent } from '../http/log'
 import { rowIdParam } from '../http/params'
 import { hourMs, throttle } from '../http/throttle'
 import { linkTo, invitationMail } from '../mail/templates'
@@ -69,7 +70,9 @@ export function teamsRouter(context: AccountsContext): Router {
   router.patch('/:teamId/members/:userId', requireTeamRole('admin'), (req, res) => {
     const { teamId } = teamMembership(req)
     const input = parseInput(memberUpdateSchema, req.body)
-    res.json({ member: changeMemberRole(db, teamId, userIdParam(req), input.role) })
+    const member = changeMemberRole(db, teamId, userIdParam(req), input.role)
+    securityEvent(req, 'role-changed', { teamId, memberId: member.userId, role: member.role })
+    res.json({ member })
   })
 
   // Admins remove anyone; every member may remove themselves (leave the team).
@@ -80,6 +83,7 @@ export function teamsRouter(context: AccountsContext): Router {
       throw new ApiError(403, 'role-too-low', 'Only admins can remove other members.')
     }
     removeMember(db, teamId, userId)
+    securityEvent(req, 'member-removed', { teamId, memberId: userId })
     res.status(204).end()
   })
 
@@ -133,6 +137,11 @@ export function teamsRouter(context: AccountsContext): Router {
           'The invitation could not be e-mailed; nothing was saved. Try again later.',
         )
       }
+      securityEvent(req, 'invitation-sent', {
+        teamId,
+        invitationId: invitation.id,
+        role: invitation.role,
+      })
       res.status(201).json({ invitation })
     },
   )

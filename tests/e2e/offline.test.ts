@@ -8,6 +8,19 @@ import { demoPassword, submitSignIn, useAppUnderTest } from '../helpers/e2e-app'
 
 const app = useAppUnderTest()
 
+/** Signs in through the API as the demo admin and ends every session of the account. */
+async function signOutEverywhereElsewhere(): Promise<void> {
+  const api = await request.newContext({ baseURL: app.server.url })
+  const headers = { Origin: app.server.url }
+  await api.post('/api/v1/auth/sign-in', {
+    data: { email: 'admin@alder-creek.example', password: demoPassword },
+    headers,
+  })
+  const ended = await api.post('/api/v1/auth/sign-out-everywhere', { headers })
+  expect(ended.status()).toBe(204)
+  await api.dispose()
+}
+
 /** A share link for the demo plan, made through the API as its editor. */
 async function makeShareLink(): Promise<string> {
   const api = await request.newContext({ baseURL: app.server.url })
@@ -106,5 +119,44 @@ describe('offline, in Chromium', () => {
     } finally {
       await context.setOffline(false)
     }
+  })
+
+  it('forgets account answers after a 401 from a session ended elsewhere, and never keeps the mail catcher', async () => {
+    const { page, context } = app.browser
+    await context.clearCookies()
+    await page.goto(`${app.server.url}/sign-in?redirect=%2Fplans`)
+    await submitSignIn(page, 'admin@alder-creek.example')
+    await page.waitForURL(`${app.server.url}/plans`)
+    await page.waitForFunction(() => navigator.serviceWorker?.controller !== null)
+    await page.reload()
+    await page.getByText('Saturday market').first().waitFor()
+    const keptPaths = () =>
+      page.evaluate(async () => {
+        const cache = await caches.open('loudhour-api')
+        return (await cache.keys()).map((kept) => new URL(kept.url).pathname)
+      })
+    await expect
+      .poll(async () => (await keptPaths()).some((path) => path.endsWith('/plans')))
+      .toBe(true)
+
+    // The catcher holds reset links: read through the service worker, it is still not kept.
+    const outboxStatus = await page.evaluate(async () => (await fetch('/api/v1/dev/outbox')).status)
+    expect(outboxStatus).toBe(200)
+    expect((await keptPaths()).filter((path) => path.startsWith('/api/v1/dev/'))).toEqual([])
+
+    // "Sign out everywhere" from another device; this page's next request answers 401. The
+    // request goes round the app's own 401 handling, so only the service worker can forget.
+    await signOutEverywhereElsewhere()
+    const teamsStatus = await page.evaluate(async () => (await fetch('/api/v1/teams')).status)
+    expect(teamsStatus).toBe(401)
+    await expect
+      .poll(
+        async () =>
+          (await keptPaths()).filter(
+            (path) => !path.startsWith('/api/v1/shared/') && !path.startsWith('/api/v1/library/'),
+          ),
+        { timeout: 5000 },
+      )
+      .toEqual([])
   })
 })

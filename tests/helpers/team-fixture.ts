@@ -10,7 +10,7 @@ import { seedDischargeLog } from './discharge-fixture'
 import { seedPlanFixture } from './plan-fixture'
 import { seedResourceFixture } from './resource-fixture'
 import { seedShareLinkFixture } from './share-link-fixture'
-import { createTestApp, testSessionSecret, type TestApp } from './test-app'
+import { createTestApp, testSessionSecret, type TestApp, type TestAppOptions } from './test-app'
 
 export const signedInActors = ['viewer', 'editor', 'admin', 'other-team-admin'] as const
 export type SignedInActor = (typeof signedInActors)[number]
@@ -32,10 +32,13 @@ let sharedHash: Promise<string> | undefined
  * team with its own admin; a pending invitation and a reset link. Written straight into the
  * database (one argon2 hash shared by every user) so a fresh fixture per request stays cheap.
  */
-export async function createTeamFixture(): Promise<TeamFixture> {
+export async function createTeamFixture(
+  overrides: Record<string, string> = {},
+  options: TestAppOptions = {},
+): Promise<TeamFixture> {
   sharedHash ??= hashPassword(strongPassword)
   const passwordHash = await sharedHash
-  const testApp = createTestApp()
+  const testApp = createTestApp(overrides, options)
   const { db } = testApp.database
   const nowMs = Date.now()
   const emails = {

@@ -8,6 +8,7 @@ import { runMigrations } from '../../server/db/migrate'
 import { parseEnv, type Env } from '../../server/env'
 import { systemClock, type Clock } from '../../server/clock'
 import { createMailer, type Mailer } from '../../server/mail/mailer'
+import type { Logger } from '../../server/http/log'
 
 export interface TestApp {
   app: Express
@@ -24,6 +25,8 @@ export const testSessionSecret = 'test-secret-that-is-long-enough-for-hs256-0123
 export interface TestAppOptions {
   /** A fake clock, e.g. to step past a token's expiry. */
   clock?: Clock
+  /** A logger to read what the app logs (see log-capture.ts); by default the app is silent. */
+  logger?: Logger
 }
 
 /** A fresh, migrated database and the app built on it, without a port (supertest drives it). */
@@ -51,6 +54,7 @@ export function createTestApp(
     mail,
     clock,
     log: () => {},
+    ...(options.logger ? { logger: options.logger } : {}),
   })
   return {
     app,

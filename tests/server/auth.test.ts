@@ -117,14 +117,15 @@ describe('sign-in', () => {
     expect(await signInCookie(app, 'pat@crew.example')).toMatch(/^loudhour_session=/)
   })
 
-  it('throttles failed sign-ins per account with 429 and Retry-After', async () => {
+  it('throttles failed sign-ins per account and address with 429 and Retry-After', async () => {
     const { app } = start()
     await signUp(app, 'pat@crew.example')
     const failed = () =>
       request(app)
         .post('/api/v1/auth/sign-in')
         .send({ email: 'pat@crew.example', password: otherStrongPassword })
-    // Ten failures per quarter hour per account (routes/auth.ts, after OWASP's throttling advice).
+    // Ten failures per quarter hour per account and address (OWASP Authentication Cheat Sheet,
+    // "Login Throttling"); from other addresses see sign-in-throttle.test.ts.
     for (let attempt = 0; attempt < 10; attempt += 1) await failed().expect(401)
     const blocked = await request(app)
       .post('/api/v1/auth/sign-in')
