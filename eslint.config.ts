@@ -79,5 +79,45 @@ export default tseslint.config(
       ],
     },
   },
+  {
+    // Layers on the server: routes map HTTP to the domain (server/resources, server/card, ...)
+    // and mount routers; nothing below them reaches back up into a route.
+    files: ['server/**'],
+    ignores: ['server/routes/**', 'server/app.ts'],
+    rules: {
+      'no-restricted-imports': [
+        'error',
+        {
+          patterns: [
+            {
+              regex: '(^|/)routes(/|$)',
+              message:
+                'Only routes and server/app.ts import from server/routes/. Move what you need into the domain layer (server/resources/ or the area folder).',
+            },
+          ],
+        },
+      ],
+    },
+  },
+  {
+    // A route does not borrow another route's code: shared pieces live in the domain layer or in
+    // server/http/. Only the files that mount routers import routers.
+    files: ['server/routes/**'],
+    ignores: ['server/routes/team-resources.ts'],
+    rules: {
+      'no-restricted-imports': [
+        'error',
+        {
+          patterns: [
+            {
+              regex: '^\\./(?!team-resource-router$)',
+              message:
+                'A route imports no other route. Put the shared piece in server/resources/ or server/http/; mount routers in team-resources.ts or server/app.ts.',
+            },
+          ],
+        },
+      ],
+    },
+  },
   prettier,
 )

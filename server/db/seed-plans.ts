@@ -1,6 +1,6 @@
 import { and, eq } from 'drizzle-orm'
 import { insertOwnedItem } from '../resources/resource-definition'
-import { planDefinition } from '../routes/plans'
+import { planDefinition } from '../resources/plans'
 import { planBodySchema } from '../../shared/schemas/plans'
 import type { Queryable } from './queryable'
 import { rigs } from './schema-resources'

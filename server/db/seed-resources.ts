@@ -17,11 +17,11 @@ import {
   speakersBodySchema,
 } from '../../shared/schemas/resources'
 import { insertOwnedItem, type WriteScope } from '../resources/resource-definition'
-import { accessoryDefinition } from '../routes/accessories'
-import { amplifierDefinition } from '../routes/amplifiers'
-import { packDefinition } from '../routes/packs'
-import { rigDefinition } from '../routes/rigs'
-import { speakersDefinition } from '../routes/speakers'
+import { accessoryDefinition } from '../resources/accessories'
+import { amplifierDefinition } from '../resources/amplifiers'
+import { packDefinition } from '../resources/packs'
+import { rigDefinition } from '../resources/rigs'
+import { speakersDefinition } from '../resources/speakers'
 import type { DemoSeedStep } from './seed'
 
 // The demo crews' own parts and saved rigs (invented; built from the generic library so their

@@ -15,3 +15,8 @@ export function rowIdParam(req: Request, name: string, notFound: string): number
   if (id === undefined) throw new ApiError(404, 'not-found', notFound)
   return id
 }
+
+/** The plan named by `:planId` in a path under `/plans/:planId/...`; 404 when it is not a row id. */
+export function planIdParam(req: Request): number {
+  return rowIdParam(req, 'planId', 'No such plan in this team.')
+}

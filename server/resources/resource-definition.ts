@@ -1,11 +1,10 @@
 import type { z } from 'zod'
 import type { AppDatabase } from '../db/client'
 import type { Queryable } from '../db/queryable'
-import type { packs } from '../db/schema-resources'
 import type { Clock } from '../clock'
 import type { RequestMembership } from '../auth/authenticate'
 import type { SavedItemMeta } from '../../shared/schemas/resources'
-import type { OwnedTable } from './owned-table'
+import type { OwnedRows, OwnedTable, OwnedValues } from './owned-table'
 
 export interface ResourceContext {
   db: AppDatabase
@@ -35,17 +34,18 @@ export interface ResourceDefinition<
   Body extends ItemBody,
   Item extends SavedItemMeta,
 > {
-  table: Table
+  /** Reads and writes of the resource's own table (`ownedRowsOf(table)`). */
+  rows: OwnedRows<Table>
   /** "pack", "speaker set": used in messages. */
   noun: string
-  /** The path parameter naming the item, e.g. `packId` (api.md writes `/packs/:packId/...`). */
+  /** The path parameter naming the item, e.g. `packId` (as in `/packs/:packId/...`). */
   idParam: string
   createSchema: z.ZodType<Body>
   updateSchema: z.ZodType<Body & { version: number }>
-  /** The resource's own columns for a body (the rig's runs the engine). */
-  columns(body: Body): Partial<Table['$inferInsert']>
+  /** The whole row for a body: the shared columns given, and the resource's own (a rig runs the engine). */
+  values(body: Body, owned: OwnedValues): Table['$inferInsert']
   /** The body that would recreate the row: duplicates go through create with it. */
-  bodyOf(tx: Queryable, row: Table['$inferSelect']): unknown
+  bodyOf(tx: Queryable, row: Table['$inferSelect']): Record<string, unknown>
   toItem(tx: Queryable, row: Table['$inferSelect'], meta: SavedItemMeta): Item
   /** Checks inside the write transaction (references to other rows); throw ApiError to refuse. */
   checkBody?(scope: WriteScope, body: Body): void
@@ -59,9 +59,18 @@ export interface ResourceDefinition<
   ): DeleteOutcome
 }
 
-/** Drizzle's builders do not accept a union of tables; every owned table has these columns. */
-export function ownedColumnsOf(table: OwnedTable): typeof packs {
-  return table as unknown as typeof packs
+/** The shared columns of a new item written by `scope`. */
+export function newItemValues(scope: WriteScope, body: ItemBody): OwnedValues {
+  return {
+    teamId: scope.teamId,
+    name: body.name,
+    notes: body.notes ?? '',
+    createdByUserId: scope.userId,
+    updatedByUserId: scope.userId,
+    createdAtMs: scope.nowMs,
+    updatedAtMs: scope.nowMs,
+    version: 1,
+  }
 }
 
 /**
@@ -73,23 +82,8 @@ export function insertOwnedItem<Table extends OwnedTable, Body extends ItemBody>
   definition: ResourceDefinition<Table, Body, SavedItemMeta>,
   body: Body,
 ): number {
-  const owned = ownedColumnsOf(definition.table)
   definition.checkBody?.(scope, body)
-  const { id } = scope.tx
-    .insert(owned)
-    .values({
-      ...(definition.columns(body) as object),
-      teamId: scope.teamId,
-      name: body.name,
-      notes: body.notes ?? '',
-      createdByUserId: scope.userId,
-      updatedByUserId: scope.userId,
-      createdAtMs: scope.nowMs,
-      updatedAtMs: scope.nowMs,
-      version: 1,
-    } as typeof owned.$inferInsert)
-    .returning({ id: owned.id })
-    .get()
+  const id = definition.rows.insert(scope.tx, definition.values(body, newItemValues(scope, body)))
   definition.afterWrite?.(scope, id, body)
   return id
 }

@@ -1,5 +1,6 @@
 import { Router } from 'express'
 import { eq } from 'drizzle-orm'
+import { planIdParam } from '../http/params'
 import { requireTeamRole, signedInUser, teamMembership } from '../auth/require'
 import type { AccountsContext } from '../auth/context'
 import { shareLinks } from '../db/schema-resources'
@@ -13,7 +14,6 @@ import {
   cardEmailBodySchema,
   type CardEmailResponse,
 } from '../../shared/card/schemas'
-import { planIdParam } from './share-links'
 import { reserveTeamMail } from '../mail/team-mail-cap'
 import { requireVerifiedSender } from '../auth/verified-sender'
 

@@ -14,8 +14,8 @@ import { securityEvent } from '../http/log'
 import { rowIdParam } from '../http/params'
 import { itemMeta, peopleOf } from '../resources/owned-table'
 import type { ResourceContext } from '../resources/resource-definition'
-import { packDefinition } from './packs'
-import { carryPackHealthToRigs } from './rigs'
+import { packDefinition } from '../resources/packs'
+import { carryPackHealthToRigs } from '../resources/rigs'
 import {
   DISCHARGE_LOG_FIELD,
   acceptDischargeLogSchema,

@@ -1,9 +1,9 @@
 import { Router } from 'express'
+import { planIdParam } from '../http/params'
 import { requireTeamRole, teamMembership } from '../auth/require'
 import type { ResourceContext } from '../resources/resource-definition'
 import { planCard, requireTeamPlan } from '../card/plan-card'
 import type { PlanCardResponse } from '../../shared/card/schemas'
-import { planIdParam } from './share-links'
 
 /** `GET /api/v1/teams/:teamId/plans/:planId/card` (viewer): the plan's runtime card, as now. */
 export function planCardRouter(context: ResourceContext): Router {

@@ -1,8 +1,8 @@
-import { Router, type Request } from 'express'
+import { Router } from 'express'
 import { requireTeamRole, signedInUser, teamMembership } from '../auth/require'
 import type { AccountsContext } from '../auth/context'
 import { ApiError, parseInput } from '../http/errors'
-import { rowIdParam } from '../http/params'
+import { planIdParam, rowIdParam } from '../http/params'
 import { requireTeamPlan } from '../card/plan-card'
 import { createShareLink, liveShareLinks, revokeShareLink } from '../card/share-links'
 import { shareLinkBodySchema } from '../../shared/card/schemas'
@@ -16,10 +16,6 @@ import { shareLinkBodySchema } from '../../shared/card/schemas'
  *                      until revoked
  *   DELETE /:linkId   editor  → 204; the link answers 404 from then on
  */
-
-export function planIdParam(req: Request): number {
-  return rowIdParam(req, 'planId', 'No such plan in this team.')
-}
 
 export function shareLinksRouter(
   context: Pick<AccountsContext, 'db' | 'clock' | 'publicUrl'>,

@@ -1,5 +1,5 @@
 import request from 'supertest'
-import { afterAll, describe, expect, it } from 'vitest'
+import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { listRoutes } from '../helpers/route-list'
 import {
   createTeamFixture,
@@ -35,18 +35,24 @@ describe('the authorization matrix covers the app', () => {
   })
 })
 
-// Reads change nothing, so they share one fixture; building one per request dominated the run.
-let readFixture: Promise<TeamFixture> | undefined
+// One app and one set of accounts for the whole matrix: each call runs inside a transaction
+// that is rolled back after it, so one actor's success (a removed member, a spent token, a
+// deleted part) cannot change the next actor's answer. The routes' own transactions nest inside
+// it as savepoints (better-sqlite3). Each route has its own throttle, and no row calls a route
+// more often than its throttle allows.
+let fixture: TeamFixture
+beforeAll(async () => {
+  fixture = await createTeamFixture()
+})
 afterAll(async () => {
-  if (readFixture) await (await readFixture).testApp.close()
+  await fixture.testApp.close()
 })
 
-// Source: the rows' own citation (design/api.md). Each write runs on a fresh fixture, so one
-// actor's success (a removed member, a spent token) cannot change the next actor's answer.
+// Source: the rows' own citation (docs/api.md, roles and status codes).
 describe.each(authorizationMatrix)('$method $path', (row) => {
   it.each(actors)('as %s', async (actor) => {
-    const isRead = row.method === 'GET'
-    const fixture = isRead ? await (readFixture ??= createTeamFixture()) : await createTeamFixture()
+    const { sqlite } = fixture.testApp.database
+    sqlite.exec('BEGIN')
     try {
       const path = fillPlaceholders(row.path, fixture.placeholders)
       let call = request(fixture.testApp.app)[row.method.toLowerCase() as 'get'](path)
@@ -55,7 +61,27 @@ describe.each(authorizationMatrix)('$method $path', (row) => {
       const response = await call
       expect(response.status, JSON.stringify(response.body)).toBe(row.expect[actor])
     } finally {
-      if (!isRead) await fixture.testApp.close()
+      sqlite.exec('ROLLBACK')
     }
+  })
+})
+
+describe('the matrix leaves no trace between calls', () => {
+  it('rolls back a write, so the next actor meets the fixture as it was', async () => {
+    // A control: without the rollback the second delete would answer 404.
+    const { sqlite } = fixture.testApp.database
+    const path = `/api/v1/teams/${fixture.placeholders.teamId}/members/${fixture.placeholders.userId}`
+    for (let attempt = 0; attempt < 2; attempt++) {
+      sqlite.exec('BEGIN')
+      try {
+        await request(fixture.testApp.app)
+          .delete(path)
+          .set('Cookie', fixture.cookies.admin)
+          .expect(204)
+      } finally {
+        sqlite.exec('ROLLBACK')
+      }
+    }
+    expect(sqlite.inTransaction).toBe(false)
   })
 })

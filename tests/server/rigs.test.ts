@@ -1,6 +1,7 @@
 import { afterEach, beforeEach, describe, expect, it } from 'vitest'
 import { eq } from 'drizzle-orm'
-import { ENGINE_VERSION, estimate } from '../../shared/engine'
+import request from 'supertest'
+import { ENGINE_VERSION } from '../../shared/engine'
 import { appMeta } from '../../server/db/schema'
 import { plans, rigAccessories, rigs } from '../../server/db/schema-resources'
 import { recomputeSummaries, summariesEngineVersionKey } from '../../server/db/recompute-summaries'
@@ -28,7 +29,11 @@ const rigBody = { name: 'Busker cart', notes: 'left wheel squeaks', spec: plainR
 describe('saving a rig runs the engine', () => {
   it('stores the summary of the same engine the browser runs', async () => {
     const created = await editor.post('/rigs', rigBody).expect(201)
-    const result = estimate(plainRigSpec)
+    // Relation: the stored headline is what the public estimate answers for the same spec.
+    const { body: result } = await request(fixture.testApp.app)
+      .post('/api/v1/estimate')
+      .send(plainRigSpec)
+      .expect(200)
     expect(created.body).toMatchObject({
       name: 'Busker cart',
       notes: 'left wheel squeaks',

@@ -1,29 +1,29 @@
 import { Router, type Request } from 'express'
-import { and, asc, count, desc, eq, sql, type SQL } from 'drizzle-orm'
+import { and, asc, desc, eq, sql, type SQL } from 'drizzle-orm'
 import type { Queryable } from '../db/queryable'
 import { requireTeamRole, signedInUser, teamMembership } from '../auth/require'
 import { ApiError, parseInput } from '../http/errors'
 import { rowIdParam } from '../http/params'
 import {
   RESOURCE_NAME_MAX,
+  SORT_FIELDS,
   listQuerySchema,
   type ListQuery,
   type ListResponse,
   type SavedItemMeta,
   type SortField,
 } from '../../shared/schemas/resources'
-import { itemMeta, peopleOf, type OwnedRow, type OwnedTable } from './owned-table'
+import { itemMeta, peopleOf, type OwnedTable } from '../resources/owned-table'
 import {
   insertOwnedItem,
-  ownedColumnsOf,
   type ItemBody,
   type ResourceContext,
   type ResourceDefinition,
   type WriteScope,
-} from './resource-definition'
+} from '../resources/resource-definition'
 
 /*
- * The one way to serve a team-owned, versioned resource (api.md, "Team-owned resources"):
+ * The one way to serve a team-owned, versioned resource (docs/api.md, "The team's parts, rigs and plans"):
  *
  *   GET    /            viewer  ?limit&offset&sort&q → { items, total }
  *   POST   /            editor  → 201 item
@@ -32,8 +32,8 @@ import {
  *   DELETE /:id         editor  → 204 (a resource may refuse, or say what else it did)
  *   POST   /:id/duplicate editor → 201 item
  *
- * Each resource says how a body becomes columns and how a row becomes an item
- * (resource-definition.ts). Every write runs in one synchronous transaction.
+ * Each resource says how a body becomes a row of its own table and how a row becomes an item
+ * (server/resources/resource-definition.ts). Every write runs in one synchronous transaction.
  */
 
 function likePattern(text: string): string {
@@ -46,56 +46,52 @@ export function teamResourceRouter<
   Item extends SavedItemMeta,
 >(context: ResourceContext, definition: ResourceDefinition<Table, Body, Item>): Router {
   const { db, clock } = context
-  const { table, noun, idParam: idName } = definition
-  const owned = ownedColumnsOf(table)
+  const { rows, noun, idParam: idName } = definition
+  const { table } = rows
   type Row = Table['$inferSelect']
   const router = Router({ mergeParams: true })
 
   const notFound = `No such ${noun} in this team.`
   const idParam = (req: Request) => rowIdParam(req, idName, notFound)
 
-  function whereOwned(teamId: number, id: number): SQL {
-    return and(eq(owned.teamId, teamId), eq(owned.id, id)) as SQL
-  }
-
-  function findRow(tx: Queryable, teamId: number, id: number): Row | undefined {
-    return tx.select().from(owned).where(whereOwned(teamId, id)).get() as Row | undefined
-  }
-
   function requireRow(tx: Queryable, teamId: number, id: number): Row {
-    const row = findRow(tx, teamId, id)
+    const row = rows.find(tx, teamId, id)
     if (!row) throw new ApiError(404, 'not-found', notFound)
     return row
   }
 
-  function present(tx: Queryable, rows: Row[]): Item[] {
-    const people = peopleOf(tx, rows as OwnedRow[])
-    return rows.map((row) => definition.toItem(tx, row, itemMeta(row as OwnedRow, people)))
+  function present(tx: Queryable, found: Row[]): Item[] {
+    const people = peopleOf(tx, found)
+    return found.map((row) => definition.toItem(tx, row, itemMeta(row, people)))
+  }
+
+  function presentOne(tx: Queryable, row: Row): Item {
+    return definition.toItem(tx, row, itemMeta(row, peopleOf(tx, [row])))
   }
 
   const sortColumns: Record<SortField, SQL> = {
-    name: sql`${owned.name} collate nocase`,
-    createdAt: sql`${owned.createdAtMs}`,
-    updatedAt: sql`${owned.updatedAtMs}`,
+    name: sql`${table.name} collate nocase`,
+    createdAt: sql`${table.createdAtMs}`,
+    updatedAt: sql`${table.updatedAtMs}`,
+  }
+
+  function orderOf(sort: ListQuery['sort']): SQL[] {
+    const field = SORT_FIELDS.find((name) => sort === name || sort === `-${name}`) ?? 'name'
+    const column = sortColumns[field]
+    return [sort?.startsWith('-') ? desc(column) : asc(column), asc(table.id)]
   }
 
   function list(teamId: number, query: ListQuery): ListResponse<Item> {
-    const conditions = [eq(owned.teamId, teamId)]
-    if (query.q) conditions.push(sql`${owned.name} like ${likePattern(query.q)} escape '\\'`)
+    const conditions = [eq(table.teamId, teamId)]
+    if (query.q) conditions.push(sql`${table.name} like ${likePattern(query.q)} escape '\\'`)
     const where = and(...conditions)
-    const sort = query.sort ?? 'name'
-    const descending = sort.startsWith('-')
-    const column = sortColumns[(descending ? sort.slice(1) : sort) as SortField]
-    const rows = db
-      .select()
-      .from(owned)
-      .where(where)
-      .orderBy(descending ? desc(column) : asc(column), asc(owned.id))
-      .limit(query.limit)
-      .offset(query.offset)
-      .all() as Row[]
-    const total = db.select({ total: count() }).from(owned).where(where).get()?.total ?? 0
-    return { items: present(db, rows), total }
+    const found = rows.list(db, {
+      where,
+      orderBy: orderOf(query.sort),
+      limit: query.limit,
+      offset: query.offset,
+    })
+    return { items: present(db, found), total: rows.count(db, where) }
   }
 
   /** The team, the signed-in user and the time of a write request. */
@@ -110,39 +106,35 @@ export function teamResourceRouter<
   function create(actor: Omit<WriteScope, 'tx'>, body: Body): Item {
     return db.transaction((tx) => {
       const id = insertOwnedItem({ ...actor, tx }, definition, body)
-      return present(tx, [requireRow(tx, actor.teamId, id)])[0] as Item
+      return presentOne(tx, requireRow(tx, actor.teamId, id))
     })
   }
 
-  function update(
-    actor: Omit<WriteScope, 'tx'>,
-    id: number,
-    body: Body & { version: number },
-  ): Item {
+  function update(actor: Omit<WriteScope, 'tx'>, id: number, version: number, body: Body): Item {
     return db.transaction((tx) => {
       const scope = { ...actor, tx }
-      const current = requireRow(tx, actor.teamId, id) as OwnedRow
-      if (current.version !== body.version) {
+      const current = requireRow(tx, actor.teamId, id)
+      if (current.version !== version) {
         throw new ApiError(
           409,
           'stale-version',
-          `Someone else saved this ${noun} after you opened it: you sent version ${body.version}, the saved one is version ${current.version}. Nothing was written.`,
+          `Someone else saved this ${noun} after you opened it: you sent version ${version}, the saved one is version ${current.version}. Nothing was written.`,
         )
       }
       definition.checkBody?.(scope, body)
-      tx.update(owned)
-        .set({
-          ...(definition.columns(body) as object),
-          name: body.name,
-          notes: body.notes ?? '',
-          updatedByUserId: actor.userId,
-          updatedAtMs: actor.nowMs,
-          version: current.version + 1,
-        } as Partial<typeof owned.$inferInsert>)
-        .where(and(whereOwned(actor.teamId, id), eq(owned.version, current.version)))
-        .run()
+      const owned = {
+        teamId: current.teamId,
+        name: body.name,
+        notes: body.notes ?? '',
+        createdByUserId: current.createdByUserId,
+        updatedByUserId: actor.userId,
+        createdAtMs: current.createdAtMs,
+        updatedAtMs: actor.nowMs,
+        version: current.version + 1,
+      }
+      rows.update(tx, actor.teamId, id, current.version, definition.values(body, owned))
       definition.afterWrite?.(scope, id, body)
-      return present(tx, [requireRow(tx, actor.teamId, id)])[0] as Item
+      return presentOne(tx, requireRow(tx, actor.teamId, id))
     })
   }
 
@@ -153,7 +145,7 @@ export function teamResourceRouter<
 
   router.get(`/:${idName}`, requireTeamRole('viewer'), (req, res) => {
     const { teamId } = teamMembership(req)
-    res.json(present(db, [requireRow(db, teamId, idParam(req))])[0])
+    res.json(presentOne(db, requireRow(db, teamId, idParam(req))))
   })
 
   router.post('/', requireTeamRole('editor'), (req, res) => {
@@ -163,8 +155,10 @@ export function teamResourceRouter<
 
   router.put(`/:${idName}`, requireTeamRole('editor'), (req, res) => {
     const id = idParam(req)
-    const body = parseInput(definition.updateSchema, req.body)
-    res.json(update(writer(req), id, body))
+    const { version } = parseInput(definition.updateSchema, req.body)
+    // The same body without `version` (the create schema drops what it does not name).
+    const body = parseInput(definition.createSchema, req.body)
+    res.json(update(writer(req), id, version, body))
   })
 
   router.delete(`/:${idName}`, requireTeamRole('editor'), (req, res) => {
@@ -173,7 +167,7 @@ export function teamResourceRouter<
     const outcome = db.transaction((tx) => {
       const row = requireRow(tx, actor.teamId, id)
       const result = definition.beforeDelete?.({ ...actor, tx }, row, teamMembership(req))
-      tx.delete(owned).where(whereOwned(actor.teamId, id)).run()
+      rows.remove(tx, actor.teamId, id)
       return result
     })
     if (outcome) res.json(outcome)
@@ -183,9 +177,11 @@ export function teamResourceRouter<
   router.post(`/:${idName}/duplicate`, requireTeamRole('editor'), (req, res) => {
     const actor = writer(req)
     const original = requireRow(db, actor.teamId, idParam(req))
-    const source = definition.bodyOf(db, original) as Record<string, unknown>
-    const copyName = `${(original as OwnedRow).name} (copy)`.slice(0, RESOURCE_NAME_MAX)
-    const body = parseInput(definition.createSchema, { ...source, name: copyName })
+    const copyName = `${original.name} (copy)`.slice(0, RESOURCE_NAME_MAX)
+    const body = parseInput(definition.createSchema, {
+      ...definition.bodyOf(db, original),
+      name: copyName,
+    })
     res.status(201).json(create(actor, body))
   })
 
