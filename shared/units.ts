@@ -1,4 +1,4 @@
-// Edge conversions for forms and display. The engine itself works in SI (engine.md, "Units").
+// Edge conversions for forms and display. The engine itself works in SI (docs/model.md, "Units").
 
 const METRES_PER_FOOT = 0.3048 // exact, international yard and pound agreement (1959)
 

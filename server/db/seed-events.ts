@@ -9,7 +9,7 @@ import type { Queryable } from './queryable'
 import { plans, rigs } from './schema-resources'
 import type { DemoSeedStep } from './seed'
 
-// The demo crew's whole Saturday (design/product.md, "Demo scenario"): the market-stage plan of
+// The demo crew's whole Saturday (invented demo data, README "Demo sign-ins"): the market-stage plan of
 // seed-plans.ts, a busker cart on its 12 V lead-acid battery and the wireless-mic announcer box,
 // sharing the crew's box of packs and the market office's sockets. Invented data.
 
@@ -44,7 +44,7 @@ export const seedDemoEvents: DemoSeedStep = (tx, demo) => {
   const cart = rigOf(tx, scope.teamId, 'Busker cart')
   const announcer = rigOf(tx, scope.teamId, 'Announcer box')
   const day = { date: '2026-06-13', temperatureC: 12 }
-  // Levels are peaks below clipping; crest factors are the programme presets of engine.md §5.
+  // Levels are peaks below clipping; crest factors are the programme presets of docs/model.md §5.
   const cartPlanId = insertOwnedItem(
     scope,
     planDefinition,

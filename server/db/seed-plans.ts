@@ -6,7 +6,7 @@ import type { Queryable } from './queryable'
 import { rigs } from './schema-resources'
 import type { DemoSeedStep } from './seed'
 
-// The demo crew's Saturday (design/product.md, "Demo scenario"): the market-stage rig from
+// The demo crew's Saturday (invented demo data, README "Demo sign-ins"): the market-stage rig from
 // 08:00 to 14:00 at 12 °C. Invented data.
 
 /** The name seed-resources.ts gives the demo crew's market-stage rig. */
@@ -31,7 +31,7 @@ export const seedDemoPlans: DemoSeedStep = (tx, demo) => {
     nowMs: demo.nowMs,
   }
   const rigId = marketRigId(tx, scope.teamId)
-  // Levels are peaks below clipping; crest factors are the programme presets of engine.md §5.
+  // Levels are peaks below clipping; crest factors are the programme presets of docs/model.md §5.
   const body = planBodySchema.parse({
     name: 'Saturday market',
     notes: 'Stage by the north gate. Charge both packs on Friday evening.',

@@ -8,7 +8,7 @@ import { seedDemoEvents } from './seed-events'
 import { seedDemoResources } from './seed-resources'
 import type { TeamRole } from '../../shared/schemas/teams'
 
-// The demo sign-ins of api.md. Invented team names and reserved .example addresses (RFC 2606).
+// The demo sign-ins of docs/api.md. Invented team names and reserved .example addresses (RFC 2606).
 export const demoPassword = 'loudhour-demo-2026'
 
 interface DemoUserSpec {

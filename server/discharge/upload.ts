@@ -3,7 +3,7 @@ import multer from 'multer'
 import { ApiError } from '../http/errors'
 import { DISCHARGE_LOG_FIELD, DISCHARGE_LOG_MAX_BYTES } from '../../shared/discharge/log'
 
-// One CSV file in memory, every multer limit set (stack.md: multer 2.x, set every `limits`
+// One CSV file in memory, every multer limit set (multer's README: set every `limits`
 // field): a form that is anything more than that one file is refused before it is buffered.
 const upload = multer({
   storage: multer.memoryStorage(),

@@ -52,7 +52,7 @@ export function partDefinition<Table extends PartTable, Body extends ItemBody>(
     beforeDelete: (scope, row, membership) => {
       const using = usage.rigsUsing(scope.tx, scope.teamId, row.id)
       if (using.length === 0) return undefined
-      // api.md: deleting a part in use is an admin's call (it detaches the part from the rigs).
+      // docs/api.md: deleting a part in use is an admin's call (it detaches the part from the rigs).
       if (membership.role !== 'admin') {
         throw new ApiError(
           403,

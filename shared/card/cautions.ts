@@ -1,4 +1,4 @@
-// The usual cautions (design/product.md, "Cautions the product shows"), worded for the crew on
+// The usual cautions (README "Cautions"), worded for the crew on
 // the day and filled in with this rig's figures. They defer to local codes and licensed practice.
 import { CHEMISTRY_DATA } from '../engine/chemistry'
 import { CHILDREN_CAUTION_DB, NIOSH_REL_DBA } from '../engine/sound'

@@ -1,4 +1,4 @@
-// Bodies and answers of the card routes (design/api.md, "Plans and packs": share-links and
+// Bodies and answers of the card routes (docs/api.md, "The team's parts, rigs and plans": share-links and
 // card-emails; "Public": GET /api/v1/shared/:token).
 import { z } from 'zod'
 import { emailSchema } from '../schemas/auth'

@@ -1,4 +1,4 @@
-// Answers and bodies of the discharge-log routes (api.md, "Plans and packs"), shared by the
+// Answers and bodies of the discharge-log routes (docs/api.md, "The team's parts, rigs and plans"), shared by the
 // server and the client.
 import { z } from 'zod'
 import type { PersonRef } from '../schemas/resources'

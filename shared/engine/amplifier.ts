@@ -1,8 +1,8 @@
-// Amplifier model (engine.md §4), per channel unless a name says otherwise.
+// Amplifier model (docs/model.md §4), per channel unless a name says otherwise.
 
 export type AmplifierClass = 'd' | 'ab' | 'a'
 
-export const DEFAULT_CLASS_D_EFFICIENCY = 0.88 // engine.md §4 default
+export const DEFAULT_CLASS_D_EFFICIENCY = 0.88 // docs/model.md §4 default
 // Boylestad & Nashelsky, Electronic Devices and Circuit Theory, ch. 12: series-fed class A
 // reaches at most 25 % at full output (50 % transformer- or push-pull-fed: set it if so)
 export const DEFAULT_CLASS_A_EFFICIENCY = 0.25
@@ -12,7 +12,7 @@ export const DEFAULT_IDLE_CURRENT_A = 0.05 // from memory: small class D boards 
 export const DEFAULT_CLASS_AB_IDLE_CURRENT_A = 0.15
 // common practice: a board's headline power is usually its 10 % THD figure (clipping hard)
 export const DEFAULT_RATED_THD_PCT = 10
-// from memory: a 10 % THD rating is roughly 1 dB above the clean 1 % figure (engine.md §4)
+// from memory: a 10 % THD rating is roughly 1 dB above the clean 1 % figure (docs/model.md §4)
 const THD_10_PCT_EXCESS_DB = 1
 
 /** dB by which a rating at this THD exceeds the clean figure: 0 at 1 %, 1 dB at 10 % and above,
@@ -27,7 +27,7 @@ function swingPerSupplyV(bridged: boolean): number {
 }
 
 /**
- * Output resistance from a datasheet point (engine.md §4): V_pk,r = √(2·P_r·R_r),
+ * Output resistance from a datasheet point (docs/model.md §4): V_pk,r = √(2·P_r·R_r),
  * R_out = R_r·(swing/V_pk,r − 1) where swing is V_r bridged or V_r/2 single-ended.
  * A rating above the ideal swing gives a negative value, clamped to 0 (reported as a warning).
  */
@@ -62,7 +62,7 @@ export function clipPowerW(
 }
 
 /**
- * Class AB/B supply current of one channel: mean|i| = k·V_rms/Z (engine.md §4), drawn from the
+ * Class AB/B supply current of one channel: mean|i| = k·V_rms/Z (docs/model.md §4), drawn from the
  * full supply when bridged and, single-ended on one supply, only on the half-cycles that source
  * current through the output capacitor (half of it: V_s/2 in place of V_s in P_in = V_s·mean|i|).
  */

@@ -155,7 +155,7 @@ export const CHEMISTRY_DATA: Record<Chemistry, ChemistryData> = {
       [100, 12.7 / 6],
     ],
     resistanceOhmAh: 0.04, // from memory: a 12 V 7 Ah AGM measures about 25–35 mΩ
-    peukertExponent: 1.2, // engine.md §1: lead-acid k ≈ 1.1–1.3
+    peukertExponent: 1.2, // docs/model.md §1: lead-acid k ≈ 1.1–1.3
     rateLossPerC: 0, // Peukert's law carries lead-acid's rate effect
     ratedHours: 20, // common practice: the 20-hour rate (C20) on lead-acid labels
     // from memory: lead-acid gives about 80 % at 0 °C and 55 % at −20 °C

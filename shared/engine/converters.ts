@@ -1,4 +1,4 @@
-// Accessories and how they are fed (engine.md §6). Accessories are wired at the amplifier end of
+// Accessories and how they are fed (docs/model.md §6). Accessories are wired at the amplifier end of
 // the lead, so they see the same supply as the amplifier.
 import type { ConverterVerdict } from '../schemas/estimate'
 
@@ -171,12 +171,12 @@ export function accessoryLoad(accessory: AccessoryInputs): AccessoryLoad {
   }
 }
 
-/** Linear regulator efficiency V_out/V_in (engine.md §6). */
+/** Linear regulator efficiency V_out/V_in (docs/model.md §6). */
 export function linearRegulatorEfficiency(inputV: number, outputV: number): number {
   return Math.min(outputV / inputV, 1)
 }
 
-/** Heat in a linear regulator: (V_in − V_out)·I (engine.md §6). */
+/** Heat in a linear regulator: (V_in − V_out)·I (docs/model.md §6). */
 export function linearRegulatorHeatW(inputV: number, outputV: number, currentA: number): number {
   return Math.max(inputV - outputV, 0) * currentA
 }

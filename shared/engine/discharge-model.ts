@@ -1,5 +1,5 @@
 // The pack model under a constant current, for drawing beside a measured discharge log, and the
-// limits a log is read against. Uses the same pack model as the estimate (pack.ts, engine.md §1).
+// limits a log is read against. Uses the same pack model as the estimate (pack.ts, docs/model.md §1).
 import type { PackSpec } from '../schemas/estimate'
 import { CHEMISTRY_DATA, defaultCellResistanceOhm } from './chemistry'
 import { buildPack, packOpenCircuitV, peukertChargeRateA, type PackInputs } from './pack'

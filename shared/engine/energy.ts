@@ -1,6 +1,6 @@
 import type { AirlineClass } from '../schemas/estimate'
 
-/** Nominal energy = nominal V × rated Ah, the figure airline rules use (engine.md §1). */
+/** Nominal energy = nominal V × rated Ah, the figure airline rules use (docs/model.md §1). */
 export function nominalWh(nominalV: number, ratedCapacityAh: number): number {
   return nominalV * ratedCapacityAh
 }

@@ -1,4 +1,4 @@
-// The entry point: estimate(request) → result (engine.md §9). Pass a request that passed
+// The entry point: estimate(request) → result (docs/model.md §9). Pass a request that passed
 // estimateRequestSchema; for such input the engine neither throws nor returns NaN or Infinity.
 import type { ConverterResult, EstimateRequest, EstimateResult } from '../schemas/estimate'
 import type { AmplifierModel } from './amplifier'
@@ -69,7 +69,7 @@ export function prepareRig(request: EstimateRequest): PreparedRig {
   // The amplifier drives the speaker leads and the speakers in series.
   const channelLoadOhm = speakerLoadOhm + speakerLeads.resistanceOhm
   const amp = resolved.amplifier
-  // engine.md §4: a rating at 10 % THD is about 1 dB above the clean figure
+  // docs/model.md §4: a rating at 10 % THD is about 1 dB above the clean figure
   const cleanRatedPowerW = amp.ratedPowerW * 10 ** (-ratingExcessDb(amp.ratedThdPct) / 10)
   const output = outputResistanceOhm(
     cleanRatedPowerW,
@@ -119,7 +119,7 @@ export function prepareRig(request: EstimateRequest): PreparedRig {
   }
 
   // Levels are set against the clip power of a full pack at rest: a fixed volume setting, so the
-  // output stays put while the pack sags and the headroom shrinks (engine.md §4, §7).
+  // output stays put while the pack sags and the headroom shrinks (docs/model.md §4, §7).
   const referenceClipW = amplifier.clipPowerPerV2 * packOpenCircuitV(pack, 1) ** 2
   const programmePeakW = peakPowerW(referenceClipW, resolved.programme.peakBelowClipDb)
   const toRunSegment = (segment: ResolvedSegment): RunSegment => ({

@@ -65,7 +65,7 @@ export function conductorResistanceOhmPerKm(areaMm2: number, temperatureC: numbe
   return (copperResistivityOhmM(temperatureC) / (areaMm2 * 1e-6)) * 1000
 }
 
-/** Round-trip resistance: out and back (2L) plus the connector and fuse allowance (engine.md §2). */
+/** Round-trip resistance: out and back (2L) plus the connector and fuse allowance (docs/model.md §2). */
 export function leadResistanceOhm(leads: LeadInputs, temperatureC: number): number {
   const conductorOhm =
     (conductorResistanceOhmPerKm(leads.areaMm2, temperatureC) / 1000) * 2 * leads.lengthM

@@ -49,17 +49,17 @@ export function buildPack(inputs: PackInputs, temperatureC: number): PackModel {
   }
   return {
     chemistry: inputs.chemistry,
-    nominalV: inputs.seriesCells * data.nominalCellV, // engine.md §1
+    nominalV: inputs.seriesCells * data.nominalCellV, // docs/model.md §1
     fullV: inputs.seriesCells * data.fullCellV,
     chargedV: inputs.seriesCells * data.chargedCellV,
     cutoffV: inputs.seriesCells * inputs.cutoffCellV,
     ratedCapacityAh,
-    // engine.md §1: capacity = p × cell Ah × health × temperature factor
+    // docs/model.md §1: capacity = p × cell Ah × health × temperature factor
     capacityAh:
       ratedCapacityAh *
       (inputs.healthPct / 100) *
       capacityTemperatureFactor(inputs.chemistry, temperatureC),
-    // engine.md §1: resistance = s × cell resistance / p, times a cold-temperature factor
+    // docs/model.md §1: resistance = s × cell resistance / p, times a cold-temperature factor
     resistanceOhm:
       ((inputs.seriesCells * inputs.cellResistanceOhm) / inputs.parallelCells) *
       resistanceTemperatureFactor(inputs.chemistry, temperatureC),
@@ -112,7 +112,7 @@ export const CANNOT_DELIVER = -1
 
 /**
  * Current drawn by a constant power P from a source of open-circuit voltage E through R: the
- * smaller root of R·I² − E·I + P = 0 (engine.md §1), written as 2P / (E + √(E² − 4RP)) so it
+ * smaller root of R·I² − E·I + P = 0 (docs/model.md §1), written as 2P / (E + √(E² − 4RP)) so it
  * stays exact as R → 0. Returns CANNOT_DELIVER when E² < 4RP.
  */
 export function constantPowerCurrentA(
@@ -145,7 +145,7 @@ export function mixedLoadCurrentA(
 }
 
 /**
- * Rate at which charge leaves the pack under Peukert's law (engine.md §1):
+ * Rate at which charge leaves the pack under Peukert's law (docs/model.md §1):
  * dQ/dt = I·(I/I_rated)^(k−1) above the rated current, I below it.
  */
 export function peukertChargeRateA(
@@ -175,7 +175,7 @@ export function chargeRateA(pack: PackModel, currentA: number): number {
   return rateA * (1 + (loss < LITHIUM_RATE_LOSS_MAX ? loss : LITHIUM_RATE_LOSS_MAX))
 }
 
-/** Peukert's law in closed form, t = H·(C/(I·H))^k (engine.md §1). */
+/** Peukert's law in closed form, t = H·(C/(I·H))^k (docs/model.md §1). */
 export function peukertRuntimeHours(
   capacityAh: number,
   ratedHours: number,

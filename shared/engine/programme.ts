@@ -1,9 +1,9 @@
-// Programme and level (engine.md §5).
+// Programme and level (docs/model.md §5).
 
 export const SINE_CREST_FACTOR_DB = 20 * Math.log10(Math.SQRT2) // 3.01 dB, by definition
 
 /** Average output of a programme whose peaks sit `peakBelowClipDb` below clipping:
- *  P_avg = 2·P_clip·10^(−(L + CF)/10) (engine.md §5). */
+ *  P_avg = 2·P_clip·10^(−(L + CF)/10) (docs/model.md §5). */
 export function averagePowerW(clipPowerW: number, peakBelowClipDb: number, crestFactorDb: number) {
   return 2 * clipPowerW * 10 ** (-(peakBelowClipDb + crestFactorDb) / 10)
 }
@@ -24,7 +24,7 @@ const GAUSSIAN_MEAN_TO_RMS = Math.sqrt(2 / Math.PI) // 0.798, by definition
 // change in crest factor never makes the class AB draw jump
 const GAUSSIAN_FROM_CREST_DB = 6
 
-/** mean|v| / rms of the programme, used for the class AB supply current (engine.md §4). */
+/** mean|v| / rms of the programme, used for the class AB supply current (docs/model.md §4). */
 export function meanToRmsRatio(crestFactorDb: number): number {
   if (crestFactorDb <= SINE_CREST_FACTOR_DB) return SINE_MEAN_TO_RMS
   if (crestFactorDb >= GAUSSIAN_FROM_CREST_DB) return GAUSSIAN_MEAN_TO_RMS
@@ -41,7 +41,7 @@ export interface ProgrammePreset {
   crestFactorDb: number
 }
 
-// engine.md §5 (common practice, from memory; editable): midpoints of the usual ranges
+// docs/model.md §5 (common practice, from memory; editable): midpoints of the usual ranges
 export const PROGRAMME_PRESETS: readonly ProgrammePreset[] = [
   { id: 'sine-tone', label: 'Sine test tone', crestFactorDb: 3.01 },
   { id: 'dense-dance', label: 'Dense mastered pop and dance', crestFactorDb: 9 },

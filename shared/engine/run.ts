@@ -1,4 +1,4 @@
-// The time-stepped run (engine.md §7): each step, draw → current → terminal voltage → charge
+// The time-stepped run (docs/model.md §7): each step, draw → current → terminal voltage → charge
 // removed → state of charge, over the schedule's segments, with swaps between packs on hand.
 import type { SegmentState, StopReason, SwapPolicy } from '../schemas/estimate'
 import type { AmplifierModel } from './amplifier'
@@ -13,7 +13,7 @@ import {
 import { chargeAh } from './charging'
 import { TimelineRecorder } from './timeline'
 
-export const MAX_STEP_S = 10 // engine.md §7: step ≤ 10 s of simulated time
+export const MAX_STEP_S = 10 // docs/model.md §7: step ≤ 10 s of simulated time
 export const OPEN_RUN_LIMIT_MINUTES = 7 * 24 * 60 // ours: a run without a schedule stops at 7 days
 
 export interface RunSegment {

@@ -1,7 +1,7 @@
 // Sound level and hearing. Free-field estimates: measure with a meter on the day.
 
 export const DEFAULT_LISTENER_DISTANCE_M = 3 // ours: the front of a small outdoor audience
-export const DEFAULT_BOUNDARY_GAIN_DB = 0 // engine.md §8: free field unless the user says otherwise
+export const DEFAULT_BOUNDARY_GAIN_DB = 0 // docs/model.md §8: free field unless the user says otherwise
 export const NIOSH_REL_DBA = 85 // NIOSH 98-126: recommended exposure limit, 8-hour TWA
 export const NIOSH_REL_MINUTES = 480
 export const NIOSH_EXCHANGE_RATE_DB = 3 // NIOSH 98-126

@@ -4,7 +4,7 @@ export interface SpeakerWiring {
   banks: number
 }
 
-/** Banks in series, each of `parallel` equal drivers: Z = banks × Z_driver / parallel (engine.md §3). */
+/** Banks in series, each of `parallel` equal drivers: Z = banks × Z_driver / parallel (docs/model.md §3). */
 export function loadOhm(wiring: SpeakerWiring): number {
   return (wiring.banks * wiring.driverOhm) / wiring.parallel
 }

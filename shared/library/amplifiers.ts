@@ -51,7 +51,7 @@ export const libraryAmplifiers: readonly LibraryAmplifier[] = [
     supplyMaxV: 26,
     lockoutV: 7.5,
     idleCurrentA: 0.05,
-    efficiency: 0.88, // engine.md §4 default; matches the datasheet class at 2 Ω
+    efficiency: 0.88, // docs/model.md §4 default; matches the datasheet class at 2 Ω
     minLoadOhm: 2,
   }),
   amplifier('amp-d-stereo-2x150w', 'Class D stereo board, 2 × 150 W (18–50 V)', {

@@ -5,7 +5,7 @@ function speakers(id: string, label: string, part: SpeakersSpec): LibrarySpeaker
   return { id, label, part }
 }
 
-// Arrangements per amplifier channel. Load = banks × driver ohms / drivers per bank (engine.md §3).
+// Arrangements per amplifier channel. Load = banks × driver ohms / drivers per bank (docs/model.md §3).
 // Sensitivities are typical of each driver size at 1 W, 1 m (from memory of makers' datasheets;
 // real drivers differ by a few dB). Every driver faces the listener unless the label says so.
 export const librarySpeakers: readonly LibrarySpeakers[] = [

@@ -1,4 +1,4 @@
-// The estimate request and result (engine.md §9). Field names are the contract: extend, rename none.
+// The estimate request and result (docs/model.md §9). Field names are the contract: extend, rename none.
 // The schema only validates; defaults are applied by the engine and listed in `result.assumed`,
 // so screens can show what was assumed.
 import { z } from 'zod'

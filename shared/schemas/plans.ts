@@ -1,5 +1,5 @@
-// Body and answer of an event plan (api.md: `{ name, rigId, date, startTime, temperatureC?,
-// packCount?, schedule }`, plus the swap policy of issue 7). The day's fields come from the
+// Body and answer of an event plan (docs/api.md: `{ name, rigId, date, startTime, temperatureC?,
+// packCount?, schedule }`, plus the swap policy). The day's fields come from the
 // estimate request's own schemas, so a message reads the same on the bench and on a plan.
 import { z } from 'zod'
 import { CLOCK_TIME_PATTERN, isCalendarDate } from '../plans/clock'

@@ -1,4 +1,4 @@
-// Bodies and answers of the team-owned resources (api.md, "Team-owned resources"): the parts
+// Bodies and answers of the team-owned resources (docs/api.md, "The team's parts, rigs and plans"): the parts
 // library (packs, amplifiers, speaker sets, accessories) and saved rigs. The server validates
 // every write with these and the client forms use the same ones, so a field's message is the same
 // on both sides. Part fields come from the engine's own schemas: a saved part drops into an
@@ -54,7 +54,7 @@ function withVersion<S extends z.ZodType>(body: S) {
   return z.intersection(body, versionFieldSchema)
 }
 
-// A part's body is its estimate fields plus `name` and `notes` (api.md). A pack's or accessory's
+// A part's body is its estimate fields plus `name` and `notes` (docs/api.md). A pack's or accessory's
 // own `label` is not sent: it is the name, so a part copied into a rig keeps its name there.
 function labelledByName<S extends z.ZodType>(schema: S) {
   return z.preprocess((input) => {
@@ -150,7 +150,7 @@ export interface PersonRef {
   name: string
 }
 
-/** What every saved item carries (api.md). Times are ISO 8601 in UTC. */
+/** What every saved item carries (docs/api.md). Times are ISO 8601 in UTC. */
 export interface SavedItemMeta {
   id: number
   version: number

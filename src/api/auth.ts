@@ -10,7 +10,7 @@ import type {
 } from '../../shared/schemas/auth'
 import { apiRequest } from './http'
 
-// The accounts API (design/api.md, "Accounts"); the session itself lives in an HttpOnly cookie.
+// The accounts API (docs/api.md, "Accounts"); the session itself lives in an HttpOnly cookie.
 
 /** The current session, or null when signed out (200 either way, unlike `GET /auth/me`). */
 export const fetchSession = () => apiRequest<{ session: MeResponse | null }>('/v1/auth/session')

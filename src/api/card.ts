@@ -9,7 +9,7 @@ import type {
 } from '../../shared/card/schemas'
 import { apiRequest } from './http'
 
-// A plan's runtime card, its share links and card e-mails (design/api.md, "Plans and packs"),
+// A plan's runtime card, its share links and card e-mails (docs/api.md, "The team's parts, rigs and plans"),
 // and the public card behind a link ("Public": GET /api/v1/shared/:token).
 
 const planBase = (teamId: number, planId: number) => `/v1/teams/${teamId}/plans/${planId}`

@@ -7,7 +7,7 @@ import {
 } from '../../shared/discharge/log'
 import { ApiRequestError, apiRequest, reportUnauthorized } from './http'
 
-// A saved pack's measured discharges (design/api.md, "Plans and packs").
+// A saved pack's measured discharges (docs/api.md, "The team's parts, rigs and plans").
 
 const base = (teamId: number, packId: number) =>
   `/v1/teams/${teamId}/packs/${packId}/discharge-logs`

@@ -15,7 +15,7 @@ import type {
 } from '../../shared/schemas/resources'
 import { apiRequest } from './http'
 
-// The team's parts library and saved rigs (design/api.md, "Team-owned resources").
+// The team's parts library and saved rigs (docs/api.md, "The team's parts, rigs and plans").
 
 export type ResourceCollection =
   'packs' | 'amplifiers' | 'speakers' | 'accessories' | 'rigs' | 'plans' | 'events'

@@ -13,7 +13,7 @@ import type {
 } from '../../shared/schemas/teams'
 import { apiRequest } from './http'
 
-// Teams, members, invitations and the local mail catcher (design/api.md, "Teams").
+// Teams, members, invitations and the local mail catcher (docs/api.md, "Teams").
 
 export const createTeam = (input: TeamCreateInput) =>
   apiRequest<{ team: TeamView }>('/v1/teams', { method: 'POST', body: input })

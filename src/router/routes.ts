@@ -180,7 +180,7 @@ export const routes: RouteRecordRaw[] = [
     component: () => import('@/views/RigCardView.vue'),
     meta: { title: 'Rig card', access: 'member' },
   },
-  // The page behind a share link (design/api.md: GET /api/v1/shared/:token), signed out.
+  // The page behind a share link (docs/api.md: GET /api/v1/shared/:token), signed out.
   {
     path: '/shared/:token',
     name: 'shared-card',

@@ -1,4 +1,4 @@
-// `npm run bench`: medians for the engine's two budgets on this machine (issue 3 item 7):
+// `npm run bench`: medians for the engine's two budgets on this machine:
 // one estimate of a 12-hour, three-pack schedule (≤ 1 ms) and one rig against 40 packs (≤ 40 ms).
 import { afterAll, bench, describe } from 'vitest'
 import { comparePacks } from '../../shared/engine/compare'

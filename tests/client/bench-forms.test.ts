@@ -124,7 +124,7 @@ describe('the bench forms', { timeout: benchTestTimeoutMs }, () => {
     const speech = PROGRAMME_PRESETS.find((preset) => preset.id === 'speech')!
     await fieldInput(wrapper, 'programme.preset').setValue('speech')
     await flushPromises()
-    // Source: engine.md §5 (common practice): speech has a crest factor of about 12–15 dB.
+    // Source: docs/model.md §5 (common practice): speech has a crest factor of about 12–15 dB.
     const shown = Number(fieldValue(wrapper, 'programme.crestFactorDb'))
     expect(shown).toBe(speech.crestFactorDb)
     expect(shown).toBeGreaterThanOrEqual(12)
@@ -165,7 +165,7 @@ describe('the bench forms', { timeout: benchTestTimeoutMs }, () => {
     // The accessory itself is untouched, and the picker shows its prompt again.
     expect(store.draft.accessories[index]).toMatchObject({ powerW: 3, inputMinV: 11 })
     expect(fieldValue(wrapper, `accessories.${index}.converter`)).toBe('')
-    // A linear regulator has no efficiency of its own (V_out/V_in, engine.md §6).
+    // A linear regulator has no efficiency of its own (V_out/V_in, docs/model.md §6).
     await fieldInput(wrapper, `accessories.${index}.converter`).setValue('conv-linear-5v')
     await flushPromises()
     expect(store.draft.accessories[index]!.efficiency).toBeUndefined()

@@ -56,7 +56,7 @@ describe('the password strength meter', () => {
   })
 
   it('holds a short password to the length rule, however random it looks', async () => {
-    // Source: NIST SP 800-63B §3.1.1.2 (a length floor; at least 12 characters here, issue 5).
+    // Source: NIST SP 800-63B §3.1.1.2 (a length floor; at least 12 characters here).
     const text = await typePassword(mountField('new-password'), 'kX9#vQ2$mZ')
     expect(text).toContain('Use at least 12 characters')
   })

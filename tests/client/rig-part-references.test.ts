@@ -9,7 +9,7 @@ import { useSessionStore } from '@/stores/session'
 import type { PackItem } from '../../shared/schemas/resources'
 
 // A saved rig refers to the team parts it uses unchanged, so those parts cannot vanish silently
-// (issue 6: a part in use by a rig is protected from deletion).
+// (a part in use by a rig is protected from deletion).
 
 vi.mock('@/api/resources', () => ({
   packsApi: { list: vi.fn() },

@@ -7,7 +7,7 @@ import { openBrowser, screenshotDir, type BrowserSession } from '../helpers/brow
 import { startServer, type RunningServer } from '../helpers/e2e-server'
 import { submitSignIn } from '../helpers/e2e-app'
 
-// The runtime card in Chromium (issue 8): printed to PDF it is one page holding the swap times
+// The runtime card in Chromium: printed to PDF it is one page holding the swap times
 // (read back with poppler's pdftotext and pdfinfo), and its share link opens signed out until
 // it is revoked.
 
@@ -16,7 +16,7 @@ let editor: BrowserSession
 let volunteer: BrowserSession | undefined
 
 beforeAll(async () => {
-  // The embedded default with the demo seed (design/api.md, "Demo data").
+  // The embedded default with the demo seed (docs/api.md, "Demo sign-ins").
   server = await startServer()
   editor = await openBrowser()
 })

@@ -12,7 +12,7 @@ const invitee = {
 
 describe('inviting someone to a team, in Chromium', () => {
   it('prints the demo sign-ins at start', () => {
-    // Source: design/api.md, "Demo data" (printed at start).
+    // Source: docs/api.md, "Demo sign-ins" (printed at start).
     expect(app.server.output()).toContain('admin@alder-creek.example  loudhour-demo-2026')
   })
 
@@ -50,7 +50,7 @@ describe('inviting someone to a team, in Chromium', () => {
     // The subject is fixed words: the team's name is in the body only.
     await main.getByRole('button', { name: /An invitation to a team on Loudhour/ }).click()
     link = await main.locator('a[href*="/invitations/accept?token="]').getAttribute('href')
-    // Source: design/api.md (links are PUBLIC_URL/invitations/accept?token=…).
+    // Source: docs/api.md (links are PUBLIC_URL/invitations/accept?token=…).
     expect(link).toMatch(
       new RegExp(`^${app.server.url}/invitations/accept\\?token=[A-Za-z0-9_-]{43}$`),
     )

@@ -3,7 +3,7 @@ import { describe, expect, it } from 'vitest'
 import { seriousAxeViolations } from '../helpers/browser'
 import { demoPassword, submitSignIn, useAppUnderTest } from '../helpers/e2e-app'
 
-// Field-ready (design/product.md §8): a plan already open keeps working offline, its card too,
+// Field-ready (README, offline): a plan already open keeps working offline, its card too,
 // and signing out leaves none of the account's answers in the browser.
 
 const app = useAppUnderTest()

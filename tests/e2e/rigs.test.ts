@@ -4,7 +4,7 @@ import { seriousAxeViolations } from '../helpers/browser'
 import { submitSignIn, useAppUnderTest } from '../helpers/e2e-app'
 
 // An editor adds a pack and saves a rig built on it; after a reload the rig is still there; a
-// viewer of the same team sees both and can change neither. Demo sign-ins: design/api.md.
+// viewer of the same team sees both and can change neither. Demo sign-ins: docs/api.md.
 
 const app = useAppUnderTest()
 

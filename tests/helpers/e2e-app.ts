@@ -3,7 +3,7 @@ import { afterAll, beforeAll } from 'vitest'
 import { openBrowser, type BrowserSession } from './browser'
 import { startServer, type RunningServer } from './e2e-server'
 
-/** Every demo account's password (design/api.md, "Demo data"). */
+/** Every demo account's password (docs/api.md, "Demo sign-ins"). */
 export const demoPassword = 'loudhour-demo-2026'
 
 export interface AppUnderTest {

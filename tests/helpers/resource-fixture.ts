@@ -76,7 +76,7 @@ export const plainRigSpec: EstimateRequest = {
   pack: partSpec(packBody, true) as EstimateRequest['pack'],
   amplifier: partSpec(amplifierBody, false) as EstimateRequest['amplifier'],
   speakers: partSpec(speakersBody, false) as EstimateRequest['speakers'],
-  // Rock and pop sit at a crest factor of about 12 dB (engine.md §5, common practice).
+  // Rock and pop sit at a crest factor of about 12 dB (docs/model.md §5, common practice).
   programme: { crestFactorDb: 12, peakBelowClipDb: 6 },
 }
 

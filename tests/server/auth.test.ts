@@ -51,7 +51,7 @@ describe('sign-up and the session cookie', () => {
     expect(answer.headers['set-cookie']).toBeUndefined()
     expect(signedIn.body.user).toMatchObject({ email: 'pat@crew.example', name: 'Pat' })
     expect(signedIn.body.emailVerified).toBe(false)
-    // Source: issue 5 ("a personal team for each new user").
+    // Source: our account rules ("a personal team for each new user").
     expect(signedIn.body.teams).toEqual([expect.objectContaining({ role: 'admin' })])
     const cookie = (signedIn.headers['set-cookie'] as unknown as string[])[0] ?? ''
     // Source: RFC 6265 §5.2.5–5.2.6 (HttpOnly, Secure), RFC 6265bis §5.4.7 (SameSite).
@@ -86,7 +86,7 @@ describe('sign-up and the session cookie', () => {
       request(app)
         .post('/api/v1/auth/sign-up')
         .send({ email: 'pat@crew.example', name: 'Pat', password })
-    // Source: NIST SP 800-63B §3.1.1.2 (at least 12 here per issue 5; refuse common passwords).
+    // Source: NIST SP 800-63B §3.1.1.2 (at least 12 here; refuse common passwords).
     const short = await attempt('short-pass1').expect(400)
     expect(short.body.error.issues).toEqual([
       { path: 'password', message: 'Use at least 12 characters' },
@@ -322,7 +322,7 @@ describe('password reset', () => {
     const weak = await confirm('password1234').expect(400)
     expect(weak.body.error.issues[0].path).toBe('password')
     await confirm(otherStrongPassword).expect(204)
-    // Source: issue 5 / OWASP Forgot Password Cheat Sheet: a reset ends all sessions, token single use.
+    // Source: OWASP Forgot Password Cheat Sheet: a reset ends all sessions, token single use.
     await me(testApp, cookie).expect(401)
     const reused = await confirm(strongPassword).expect(400)
     expect(reused.body.error.issues[0].path).toBe('token')

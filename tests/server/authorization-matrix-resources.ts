@@ -10,9 +10,9 @@ import { eventBody } from '../helpers/event-fixture'
 import type { Actor } from '../helpers/team-fixture'
 import type { MatrixRow } from './authorization-matrix'
 
-// Rows of the authorization matrix for the team's parts and rigs. Source: design/api.md
+// Rows of the authorization matrix for the team's parts and rigs. Source: docs/api.md
 // ("Team-owned resources": viewers read, editors write, admin for deleting a part in use) and
-// issue 6. The fixture's parts are all used by its rig, so an editor's delete of one is a 403.
+// The fixture's parts are all used by its rig, so an editor's delete of one is a 403.
 
 /** The matrix's own helper: members by role, outsiders 404, signed-out 401. */
 type TeamExpect = (viewer: number, editor: number, admin: number) => Record<Actor, number>
@@ -45,7 +45,7 @@ export function resourceMatrixRows(team: TeamExpect): MatrixRow[] {
     ...resourceRows(team, 'speakers', 'speakersId', speakersBody, partInUse),
     ...resourceRows(team, 'accessories', 'accessoryId', accessoryBody, partInUse),
     ...resourceRows(team, 'rigs', 'rigId', rigBody, team(403, 204, 204)),
-    // Plans as rigs (issue 7); the body names the fixture's plan rig, as a number.
+    // Plans as rigs; the body names the fixture's plan rig, as a number.
     ...resourceRows(
       team,
       'plans',

@@ -4,7 +4,7 @@ import { resourceMatrixRows } from './authorization-matrix-resources'
 
 /**
  * Who may call what: every route of the API × every kind of caller → the expected status.
- * Source: design/api.md (routes, roles admin ⊃ editor ⊃ viewer, 401/403/404) and issue 5.
+ * Source: docs/api.md (routes, roles admin ⊃ editor ⊃ viewer, 401/403/404).
  *
  * Paths are the Express templates exactly as the app declares them; `:teamId` is the fixture's
  * team (the one "other-team-admin" is not in: 404 for them), `:userId` a viewer of that team.
@@ -139,9 +139,9 @@ export const authorizationMatrix: MatrixRow[] = [
 
   // Anyone signed in: each sees their teams' mail (as admin) and mail to their own address.
   { method: 'GET', path: '/api/v1/dev/outbox', expect: signedIn(200) },
-  // The parts library and saved rigs (issue 6).
+  // The parts library and saved rigs.
   ...resourceMatrixRows(team),
-  // A pack's discharge logs (issue 9). A JSON body carries no file: editors get 400 for it.
+  // A pack's discharge logs. A JSON body carries no file: editors get 400 for it.
   {
     method: 'POST',
     path: '/api/v1/teams/:teamId/packs/:packId/discharge-logs',
@@ -167,7 +167,7 @@ export const authorizationMatrix: MatrixRow[] = [
     path: '/api/v1/teams/:teamId/packs/:packId/discharge-logs/:logId/accept',
     expect: team(403, 200, 200),
   },
-  // The runtime card (issue 8): viewers read it, editors share and e-mail it; a live link opens
+  // The runtime card: viewers read it, editors share and e-mail it; a live link opens
   // the card for anyone, signed in or not.
   { method: 'GET', path: '/api/v1/teams/:teamId/plans/:planId/card', expect: team(200, 200, 200) },
   {

@@ -6,7 +6,7 @@ import { users } from '../../server/db/schema'
 import { planBody } from '../helpers/plan-fixture'
 import { createCardFixture, tokenOf, type CardFixture } from '../helpers/card-fixture'
 
-// E-mailing a plan's card to the crew (issue 8; design/api.md: POST .../plans/:planId/card-emails
+// E-mailing a plan's card to the crew (docs/api.md: POST .../plans/:planId/card-emails
 // `{ to: [email] }`, editors): each address gets the card inline as HTML, a text part, and a
 // read-only share link, through the mail service (here its built-in catcher).
 

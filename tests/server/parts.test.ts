@@ -211,7 +211,7 @@ describe('duplicating and deleting parts', () => {
   })
 
   it("refuses an editor's delete of a part in use with 403 naming the rig", async () => {
-    // Source: design/api.md: DELETE needs an admin for parts in use (403 not allowed).
+    // Source: docs/api.md: DELETE needs an admin for parts in use (403 not allowed).
     const response = await editor.delete(`/packs/${fixture.placeholders.packId}`).expect(403)
     expect(response.body.error.code).toBe('part-in-use')
     expect(response.body.error.message).toContain('"Market stage column"')

@@ -192,7 +192,7 @@ describe('bad plans are refused, naming the field, and nothing is written', () =
 
 describe('the demo plan', () => {
   it('is the Saturday market from 08:00 to 14:00 at 12 °C on the market-stage rig', async () => {
-    // Source: design/product.md, "Demo scenario".
+    // Source: invented demo data, README "Demo sign-ins".
     const testApp = createTestApp()
     try {
       await seedDemo(testApp.database, Date.now())

@@ -74,7 +74,7 @@ describe('saving a rig runs the engine', () => {
       })
       .expect(200)
     expect(louder.body.version).toBe(2)
-    // Source: engine.md §5, P_avg = 2·P_clip·10^(−(L + CF)/10): L from 6 dB to 0 dB is 10^0.6
+    // Source: docs/model.md §5, P_avg = 2·P_clip·10^(−(L + CF)/10): L from 6 dB to 0 dB is 10^0.6
     // ≈ 4 × the output power, so the draw rises and the runtime falls.
     expect(louder.body.summary.averageDrawW).toBeGreaterThan(created.body.summary.averageDrawW * 2)
     expect(louder.body.summary.runtimeHours).toBeLessThan(created.body.summary.runtimeHours / 2)
@@ -322,7 +322,7 @@ describe('the demo crews', () => {
       expect([...byTeam.values()].map((names) => names.length).sort()).toEqual([1, 3])
       for (const rig of saved) {
         expect(rig.summary?.engineVersion).toBe(ENGINE_VERSION)
-        // Source: engine.md §1, "20 V max" and "40 V max" packs are 18 V and 36 V nominal
+        // Source: docs/model.md §1, "20 V max" and "40 V max" packs are 18 V and 36 V nominal
         // (common practice); the market columns run on the 36 V class.
         if (rig.name === 'Market stage columns') expect(rig.spec.pack.seriesCells).toBe(10)
       }

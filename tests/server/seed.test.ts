@@ -11,11 +11,11 @@ afterEach(async () => {
 })
 
 describe('the demo seed', () => {
-  it('creates the teams and sign-ins of api.md once, and they keep apart', async () => {
+  it('creates the teams and sign-ins of docs/api.md once, and they keep apart', async () => {
     testApp = createTestApp()
     expect(await seedDemo(testApp.database, Date.now())).toBe(true)
     expect(await seedDemo(testApp.database, Date.now())).toBe(false)
-    // Source: design/api.md, "Demo data".
+    // Source: docs/api.md, "Demo sign-ins".
     expect(demoSignIns().map((signIn) => signIn.email)).toEqual([
       'admin@alder-creek.example',
       'editor@alder-creek.example',

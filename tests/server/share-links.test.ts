@@ -6,7 +6,7 @@ import { demoPassword } from '../../server/db/seed'
 import { signInCookie } from '../helpers/accounts'
 import { createCardFixture, tokenOf, type CardFixture } from '../helpers/card-fixture'
 
-// Share links to a plan's card (issue 8; design/api.md: POST|DELETE .../plans/:planId/share-links
+// Share links to a plan's card (docs/api.md: POST|DELETE .../plans/:planId/share-links
 // for editors, GET /api/v1/shared/:token anonymous and read-only, 404 once revoked or expired).
 
 let fixture: CardFixture
@@ -32,7 +32,7 @@ function openSignedOut(token: string) {
 describe('a share link to a plan card', () => {
   it('opens the card signed out, with the swaps of the saved plan and nothing else', async () => {
     const created = await createLink({ label: 'Volunteers' }).expect(201)
-    // Source: design/api.md: PUBLIC_URL + the client page of the link
+    // Source: docs/api.md: PUBLIC_URL + the client page of the link
     expect(created.body.url).toMatch(/^http:\/\/localhost:3999\/shared\/[A-Za-z0-9_-]{43}$/)
     // Source: the Gregorian calendar: the day after Saturday 13 June 2026 (the demo plan's date)
     // has ended in every time zone (UTC−12) at 12:00 UTC on 15 June

@@ -79,7 +79,7 @@ describe('invitations', () => {
       ['admin@crew.example', 'admin'],
       ['sam@crew.example', 'editor'],
     ])
-    // Source: issue 5 (invitation tokens are single use).
+    // Source: our account rules (invitation tokens are single use).
     const again = await accept(c, sam.cookie, token).expect(400)
     expect(again.body.error.issues[0].path).toBe('token')
     const pending = await request(c.testApp.app)
@@ -95,7 +95,7 @@ describe('invitations', () => {
     const stored = c.testApp.database.db.select().from(invitations).all()
     expect(stored).toHaveLength(1)
     expect(JSON.stringify(stored)).not.toContain(token)
-    // Source: issue 5 (7-day expiry); 256-bit tokens are 43 base64url characters (RFC 4648 §5).
+    // Source: our account rules (7-day expiry); 256-bit tokens are 43 base64url characters (RFC 4648 §5).
     expect(token).toHaveLength(43)
     await signUp(c.testApp, 'sam@crew.example')
     const preview = () => request(c.testApp.app).post('/api/v1/invitations/preview').send({ token })
@@ -194,7 +194,7 @@ describe('roles and the last admin', () => {
         .patch(`/api/v1/teams/${c.teamId}/members/${adminId}`)
         .set('Cookie', c.admin.cookie)
         .send({ role: 'editor' })
-    // Source: issue 5 ("the last admin cannot leave or be demoted").
+    // Source: our account rules ("the last admin cannot leave or be demoted").
     expect((await demote().expect(409)).body.error.code).toBe('last-admin')
     await request(c.testApp.app)
       .delete(`/api/v1/teams/${c.teamId}/members/${adminId}`)

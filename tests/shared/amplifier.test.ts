@@ -42,17 +42,17 @@ describe('class B supply draw', () => {
 
 describe('clip power from a datasheet point', () => {
   it('derives R_out so the datasheet point is reproduced', () => {
-    // Source: engine.md §4: V_pk,r = √(2·50·4) = 20 V, R_out = 4·(21/20 − 1) = 0.2 ohm (bridged)
+    // Source: docs/model.md §4: V_pk,r = √(2·50·4) = 20 V, R_out = 4·(21/20 − 1) = 0.2 ohm (bridged)
     const { outputResistanceOhm: rOut, clamped } = outputResistanceOhm(50, 4, 21, true)
     expect(rOut).toBeCloseTo(0.2, 9)
     expect(clamped).toBe(false)
     expect(clipPowerW(21, 4, rOut, true)).toBeCloseTo(50, 9)
-    // Into 8 ohm: (21 · 8/8.2)² / 16 = 26.23 W (engine.md §4: V_pk = V_s·Z/(Z + R_out))
+    // Into 8 ohm: (21 · 8/8.2)² / 16 = 26.23 W (docs/model.md §4: V_pk = V_s·Z/(Z + R_out))
     expect(clipPowerW(21, 8, rOut, true)).toBeCloseTo(26.23, 2)
   })
 
   it('swings half the supply single-ended', () => {
-    // Source: engine.md §4: single-ended, V_pk = (V_s/2)·Z/(Z + R_out); ideal 12 V into 4 ohm is
+    // Source: docs/model.md §4: single-ended, V_pk = (V_s/2)·Z/(Z + R_out); ideal 12 V into 4 ohm is
     // 6² / 8 = 4.5 W
     expect(clipPowerW(12, 4, 0, false)).toBeCloseTo(4.5, 9)
     const { outputResistanceOhm: rOut } = outputResistanceOhm(4, 4, 12, false)
@@ -60,7 +60,7 @@ describe('clip power from a datasheet point', () => {
   })
 
   it('clamps an over-ideal rating to R_out = 0', () => {
-    // Source: engine.md §4: 100 W into 4 ohm needs a 28.3 V peak, more than a 21 V supply swings
+    // Source: docs/model.md §4: 100 W into 4 ohm needs a 28.3 V peak, more than a 21 V supply swings
     expect(outputResistanceOhm(100, 4, 21, true)).toEqual({ outputResistanceOhm: 0, clamped: true })
   })
 
@@ -85,7 +85,7 @@ describe('clip power from a datasheet point', () => {
   })
 
   it('loses clip power as the pack sags to cutoff', () => {
-    // Source: engine.md §4: P_clip ∝ V_s², so 15 V at cutoff against 21 V full is about −2.9 dB
+    // Source: docs/model.md §4: P_clip ∝ V_s², so 15 V at cutoff against 21 V full is about −2.9 dB
     const result = estimate(columnRig())
     expect(result.clipPowerW.cutoff).toBeLessThan(result.clipPowerW.full)
     expect(10 * Math.log10(result.clipPowerW.full / result.clipPowerW.cutoff)).toBeGreaterThan(2.5)
@@ -108,7 +108,7 @@ describe('supply draw by class', () => {
   })
 
   it('class D draws P_out/η + V_s·I_idle', () => {
-    // Source: engine.md §4: P_in = P_out/η + V_s·I_idle with η 0.88 and idle 0.05 A by default
+    // Source: docs/model.md §4: P_in = P_out/η + V_s·I_idle with η 0.88 and idle 0.05 A by default
     expect(amplifierInputW(model('d'), 12, 10, 1, sine)).toBeCloseTo(10 / 0.88 + 12 * 0.05, 9)
     expect(amplifierInputW(model('d'), 12, 10, 0, sine)).toBeCloseTo(0.6, 9)
   })
@@ -122,7 +122,7 @@ describe('supply draw by class', () => {
   })
 
   it('class AB adds its idle current to the signal current', () => {
-    // Source: engine.md §4: P_in = V_s·mean|i| + V_s·I_idle
+    // Source: docs/model.md §4: P_in = V_s·mean|i| + V_s·I_idle
     const signalW = 12 * classAbSupplyCurrentA(4, 8, sine, true)
     expect(amplifierInputW(model('ab'), 12, 4, 1, sine)).toBeCloseTo(signalW + 0.6, 9)
   })

@@ -10,7 +10,7 @@ import {
 
 describe('chemistry tables', () => {
   it('gives a 12 V lead-acid battery 12.7 V resting when full and about 12.2 V at half', () => {
-    // Source: issue 3 item 5 and the common AGM resting-voltage charts (from memory; tables differ
+    // Source: the common AGM resting-voltage charts (from memory; tables differ
     // by ±0.15 V)
     expect(6 * cellOpenCircuitV('lead-acid', 100)).toBeCloseTo(12.7, 2)
     expect(Math.abs(6 * cellOpenCircuitV('lead-acid', 50) - 12.2)).toBeLessThanOrEqual(0.15)

@@ -50,7 +50,7 @@ describe('pack comparison', () => {
   })
 
   it('finds how many packs last the schedule', () => {
-    // Source: engine.md §7: with swaps at once, the packs needed are those the run uses
+    // Source: docs/model.md §7: with swaps at once, the packs needed are those the run uses
     const rows = comparePacks(day, [toolPack(1), toolPack(1, { count: 2 })])
     const row = rows[0]!
     expect(row.lasts).toBe(false)

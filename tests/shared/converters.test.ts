@@ -26,7 +26,7 @@ const linearPreamp = {
 
 describe('converter verdicts over the whole discharge', () => {
   it('sorts devices by their input range against the pack window', () => {
-    // Source: engine.md §6: direct OK / step-down / step-up / buck-boost / over the maximum at full
+    // Source: docs/model.md §6: direct OK / step-down / step-up / buck-boost / over the maximum at full
     expect(converterVerdict(windowMinV, windowMaxV, 12, 24)).toBe('direct-ok')
     expect(converterVerdict(windowMinV, windowMaxV, 4.75, 5.25)).toBe('step-down') // USB 5 V ± 5 %
     expect(converterVerdict(windowMinV, windowMaxV, 9, 18)).toBe('over-max')
@@ -79,7 +79,7 @@ describe('accessory draw', () => {
   })
 
   it('runs a linear regulator at V_out/V_in and sheds (V_in − V_out)·I as heat', () => {
-    // Source: engine.md §6; Ohm's law: 5 V at 0.5 A from 12 V is 41.7 % efficient, 3.5 W of heat
+    // Source: docs/model.md §6; Ohm's law: 5 V at 0.5 A from 12 V is 41.7 % efficient, 3.5 W of heat
     expect(linearRegulatorEfficiency(12, 5)).toBeCloseTo(5 / 12, 12)
     expect(linearRegulatorHeatW(12, 5, 0.5)).toBeCloseTo(3.5, 12)
     const load = accessoryLoad({ ...linearPreamp, efficiency: 1, idleW: 0, exposedInput: null })
@@ -87,7 +87,7 @@ describe('accessory draw', () => {
   })
 
   it('reports linear heat, the window and a plain-words fix in the estimate', () => {
-    // Source: engine.md §6: (21 V − 5 V) × 0.5 A = 8 W at full charge, far over what a bare
+    // Source: docs/model.md §6: (21 V − 5 V) × 0.5 A = 8 W at full charge, far over what a bare
     // regulator sheds (from memory: about 1 W)
     const result = estimate(
       variant(columnRig(), {
@@ -103,7 +103,7 @@ describe('accessory draw', () => {
   })
 
   it('flags a directly wired device that a full pack overdrives', () => {
-    // Source: engine.md §6 verdict "over the device's maximum at full charge": 21 V > 18 V
+    // Source: docs/model.md §6 verdict "over the device's maximum at full charge": 21 V > 18 V
     const result = estimate(
       variant(columnRig(), {
         accessories: [{ label: 'Mixer', powerW: 3, inputMinV: 9, inputMaxV: 18, feed: 'direct' }],

@@ -52,7 +52,7 @@ describe('the model under a constant current', () => {
   })
 
   it('runs out at the time of Peukert’s law for a lead-acid battery', () => {
-    // Source: Peukert's law t = H·(C/(I·H))^k (Peukert 1897; engine.md §1), C20 rating.
+    // Source: Peukert's law t = H·(C/(I·H))^k (Peukert 1897; docs/model.md §1), C20 rating.
     const battery: PackSpec = {
       chemistry: 'lead-acid',
       seriesCells: 6,

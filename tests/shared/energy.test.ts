@@ -5,7 +5,7 @@ import { columnRig, variant } from './rig-fixtures'
 
 describe('energy and airline class', () => {
   it('rates energy as nominal V × Ah', () => {
-    // Source: engine.md §1; common practice: an 18 V 5 Ah tool pack is labelled 90 Wh
+    // Source: docs/model.md §1; common practice: an 18 V 5 Ah tool pack is labelled 90 Wh
     expect(nominalWh(18, 5)).toBe(90)
     expect(estimate(columnRig()).energyWh.nominal).toBeCloseTo(90, 9)
   })

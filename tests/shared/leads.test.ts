@@ -18,14 +18,14 @@ describe('leads', () => {
   })
 
   it('gives 18 AWG about 20.95 ohm/km and 10 AWG about 3.28 ohm/km at 20 °C', () => {
-    // Source: ASTM B258 diameter with IEC 60028 resistivity (issue 3 item 5: 18 AWG ≈ 20.95 Ω/km);
+    // Source: ASTM B258 diameter with IEC 60028 resistivity (18 AWG ≈ 20.95 Ω/km);
     // wire tables give 10 AWG 3.277 Ω/km
     expect(conductorResistanceOhmPerKm(awgToAreaMm2(18), 20)).toBeCloseTo(20.95, 1)
     expect(conductorResistanceOhmPerKm(awgToAreaMm2(10), 20)).toBeCloseTo(3.277, 2)
   })
 
   it('counts the round trip 2L and adds the connector allowance', () => {
-    // Source: engine.md §2: R = ρ(T)·2L/A plus a connector/fuse allowance; a two-conductor lead
+    // Source: docs/model.md §2: R = ρ(T)·2L/A plus a connector/fuse allowance; a two-conductor lead
     // carries the current out and back
     const area = awgToAreaMm2(18)
     const bare = leadResistanceOhm({ areaMm2: area, lengthM: 1, connectorOhm: 0 }, 20)

@@ -46,7 +46,7 @@ describe('the built-in library', () => {
 
   it('gives converter modules efficiencies in the range their datasheets give', () => {
     // Source: common practice: small switching modules are 75–95 % efficient at a few watts;
-    // a linear regulator has none of its own (V_out/V_in, engine.md §6).
+    // a linear regulator has none of its own (V_out/V_in, docs/model.md §6).
     for (const { id, part } of libraryConverters) {
       if (part.feed === 'linear') expect(part.efficiency, id).toBeUndefined()
       else {
@@ -155,7 +155,7 @@ describe('the built-in library', () => {
   })
 
   it('gives every amplifier a datasheet point that a real output stage can reach', () => {
-    // engine.md §4: the clean peak swing √(2·P·R) must fit in the supply (bridged) or half of it,
+    // docs/model.md §4: the clean peak swing √(2·P·R) must fit in the supply (bridged) or half of it,
     // otherwise the derived output resistance is clamped to 0.
     for (const item of libraryAmplifiers) {
       const amp = item.part

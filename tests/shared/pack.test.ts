@@ -32,7 +32,7 @@ describe('pack derivation', () => {
   })
 
   it('scales capacity by parallel cells, health and temperature, resistance by s/p', () => {
-    // Source: engine.md §1: capacity = p × cell Ah × health × temperature factor;
+    // Source: docs/model.md §1: capacity = p × cell Ah × health × temperature factor;
     // resistance = s × cell resistance / p (series resistances add, parallel ones divide)
     const pack = buildPack({ ...toolPack, healthPct: 80 }, 25)
     expect(pack.ratedCapacityAh).toBe(5)
@@ -76,14 +76,14 @@ describe('constant-power current with sag', () => {
 
 describe('Peukert', () => {
   it('runs a 100 Ah / 20 h battery with k = 1.2 for 20 h at 5 A and 8.7 h at 10 A', () => {
-    // Source: Peukert's law t = H·(C/(I·H))^k (issue 3 item 5): at the rated 5 A, exactly 20 h;
+    // Source: Peukert's law t = H·(C/(I·H))^k: at the rated 5 A, exactly 20 h;
     // at 10 A, 20 × 0.5^1.2 = 8.706 h
     expect(peukertRuntimeHours(100, 20, 5, 1.2)).toBeCloseTo(20, 9)
     expect(peukertRuntimeHours(100, 20, 10, 1.2)).toBeCloseTo(8.706, 3)
   })
 
   it('draws charge at I·(I/I_rated)^(k−1), matching the closed form', () => {
-    // Source: engine.md §1: dQ = I·(I/I_rated)^(k−1)·dt; 100 Ah over that rate equals Peukert's t
+    // Source: docs/model.md §1: dQ = I·(I/I_rated)^(k−1)·dt; 100 Ah over that rate equals Peukert's t
     expect(100 / peukertChargeRateA(5, 5, 1.2)).toBeCloseTo(20, 9)
     expect(100 / peukertChargeRateA(10, 5, 1.2)).toBeCloseTo(
       peukertRuntimeHours(100, 20, 10, 1.2),

@@ -34,7 +34,7 @@ const playingNothing = { state: 'on', playingPct: 0 } as const
 describe('a day with an off segment', () => {
   it('does not drain the pack while off: the swap comes one off-segment later', () => {
     // Source: definition of the ampere-hour: 4 Ah at 1 A lasts 240 powered minutes. Off draws
-    // nothing (engine.md §7), so the 120 minutes off move the swap from minute 240 to 360.
+    // nothing (docs/model.md §7), so the 120 minutes off move the swap from minute 240 to 360.
     const day = estimate(
       steadyAmpDay([
         { label: 'Morning', minutes: 180, ...playingNothing },
@@ -106,7 +106,7 @@ describe('energy across a day with swaps', () => {
 
   it('accounts for all the chemical energy drawn, over every pack', () => {
     // Source: conservation of energy: what leaves the cells is the amplifier's output and loss,
-    // the accessories and their converters, and the I²R in leads and packs (engine.md §9:
+    // the accessories and their converters, and the I²R in leads and packs (docs/model.md §9:
     // within 0.1 %).
     const breakdown = Object.values(day.breakdownWh).reduce((sum, wh) => sum + wh, 0)
     expect(Math.abs(breakdown - day.energyWh.drawn) / day.energyWh.drawn).toBeLessThan(0.001)
@@ -122,7 +122,7 @@ describe('energy across a day with swaps', () => {
     const lunch = segments.find((segment) => segment.state === 'off')!
     expect(lunch.deliveredWh).toBe(0)
     expect(lunch.ranMinutes).toBeCloseTo(60, 9)
-    // Idle draws a little, music much more (engine.md §4: idle current only).
+    // Idle draws a little, music much more (docs/model.md §4: idle current only).
     const [setUp, morning] = segments
     expect(setUp!.averageDrawW).toBeGreaterThan(0)
     expect(morning!.averageDrawW).toBeGreaterThan(5 * setUp!.averageDrawW)

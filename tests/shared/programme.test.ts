@@ -9,7 +9,7 @@ import {
 
 describe('programme and level', () => {
   it('gives the clip power for a sine with its peaks at clipping', () => {
-    // Source: engine.md §5: a sine (CF 3.01 dB) at L = 0 gives P_clip; 20·log10(√2) = 3.0103 dB
+    // Source: docs/model.md §5: a sine (CF 3.01 dB) at L = 0 gives P_clip; 20·log10(√2) = 3.0103 dB
     expect(SINE_CREST_FACTOR_DB).toBeCloseTo(3.0103, 4)
     expect(averagePowerW(40, 0, SINE_CREST_FACTOR_DB)).toBeCloseTo(40, 9)
   })
@@ -20,13 +20,13 @@ describe('programme and level', () => {
   })
 
   it('lowers the average 10·log10 per dB of level and keeps peaks at P_clip·10^(−L/10)', () => {
-    // Source: definition of the decibel for power ratios (engine.md "Units")
+    // Source: definition of the decibel for power ratios (docs/model.md "Units")
     expect(10 * Math.log10(averagePowerW(100, 0, 12) / averagePowerW(100, 6, 12))).toBeCloseTo(6, 9)
     expect(peakPowerW(100, 3)).toBeCloseTo(50.12, 2)
   })
 
   it('uses mean|v|/rms of 0.900 for a sine and 0.798 for Gaussian programme', () => {
-    // Source: engine.md §4: sine 2√2/π ≈ 0.900, Gaussian √(2/π) ≈ 0.798
+    // Source: docs/model.md §4: sine 2√2/π ≈ 0.900, Gaussian √(2/π) ≈ 0.798
     expect(meanToRmsRatio(3.01)).toBeCloseTo(0.9003, 4)
     expect(meanToRmsRatio(12)).toBeCloseTo(0.7979, 4)
     const between = meanToRmsRatio(4.5)
@@ -35,7 +35,7 @@ describe('programme and level', () => {
   })
 
   it('offers presets inside the usual crest-factor ranges', () => {
-    // Source: engine.md §5 (common practice, from memory): sine 3 dB, dense pop/dance 8–10 dB,
+    // Source: docs/model.md §5 (common practice, from memory): sine 3 dB, dense pop/dance 8–10 dB,
     // rock/pop 12–14 dB, speech 12–15 dB, acoustic/jazz/classical 15–20 dB
     const ranges: Record<string, [number, number]> = {
       'sine-tone': [3, 3.02],

@@ -1,4 +1,4 @@
-// Property tests over valid inputs (issue 3 item 6). Each property is a law of the model:
+// Property tests over valid inputs. Each property is a law of the model:
 // conservation of energy, and that more draw never buys more runtime.
 import fc from 'fast-check'
 import { describe, expect, it } from 'vitest'
@@ -126,7 +126,7 @@ const params = { numRuns: RUNS, seed: Number(process.env.PROPERTY_SEED ?? 202406
 // Each property runs a few hundred estimates; on a busy 2-core machine that can pass 5 s.
 describe('engine properties', { timeout: 30_000 }, () => {
   it('returns finite numbers only, and never throws', () => {
-    // Source: engine.md §9: never NaN or Infinity for input that passed the schema
+    // Source: docs/model.md §9: never NaN or Infinity for input that passed the schema
     fc.assert(
       fc.property(requestArbitrary, (request) => {
         expect(allFinite(estimate(request))).toBe(true)
@@ -136,7 +136,7 @@ describe('engine properties', { timeout: 30_000 }, () => {
   })
 
   it('never runs longer when louder', () => {
-    // Source: engine.md §5: a lower peakBelowClipDb raises the output, so the draw rises
+    // Source: docs/model.md §5: a lower peakBelowClipDb raises the output, so the draw rises
     fc.assert(
       fc.property(
         requestArbitrary,
@@ -205,7 +205,7 @@ describe('engine properties', { timeout: 30_000 }, () => {
   })
 
   it('adds the breakdown up to the chemical energy drawn within 0.1 %', () => {
-    // Source: engine.md §9; conservation of energy
+    // Source: docs/model.md §9; conservation of energy
     fc.assert(
       fc.property(requestArbitrary, (request) => {
         const result = estimate(request)
@@ -221,7 +221,7 @@ describe('engine properties', { timeout: 30_000 }, () => {
   })
 
   it('never raises the state of charge while a pack is in use', () => {
-    // Source: engine.md §7: charge only leaves a pack during a run (these inputs have no
+    // Source: docs/model.md §7: charge only leaves a pack during a run (these inputs have no
     // charging break)
     fc.assert(
       fc.property(requestArbitrary, (request) => {

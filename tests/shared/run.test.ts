@@ -29,7 +29,7 @@ describe('time-stepped run', () => {
   })
 
   it('runs a 100 Ah / 20 h lead-acid battery with k = 1.2 for 20 h at 5 A and 8.7 h at 10 A', () => {
-    // Source: Peukert's law t = H·(C/(I·H))^k (issue 3 item 5); the 20-hour rate (C20) of
+    // Source: Peukert's law t = H·(C/(I·H))^k; the 20-hour rate (C20) of
     // lead-acid labels (common practice)
     const battery = {
       chemistry: 'lead-acid' as const,
@@ -50,7 +50,7 @@ describe('time-stepped run', () => {
   })
 
   it('swaps packs at once as each runs out and lists every swap', () => {
-    // Source: engine.md §7: with several packs on hand the next comes in when one runs out;
+    // Source: docs/model.md §7: with several packs on hand the next comes in when one runs out;
     // three identical 5 Ah packs at 1 A give 3 × 5 h (definition of the ampere-hour)
     const result = estimate(
       constantCurrentRig(
@@ -76,7 +76,7 @@ describe('time-stepped run', () => {
   })
 
   it('follows a schedule with idle and off segments', () => {
-    // Source: engine.md §7/§9: idle draws the amplifier's idle current and accessories; off draws
+    // Source: docs/model.md §7/§9: idle draws the amplifier's idle current and accessories; off draws
     // nothing, so the state of charge holds
     const request = variant(columnRig(), {
       schedule: [
@@ -104,7 +104,7 @@ describe('time-stepped run', () => {
   })
 
   it('stops when the packs run out before the schedule ends, and says when', () => {
-    // Source: engine.md §9: schedule.lasts is false and every swap time is listed
+    // Source: docs/model.md §9: schedule.lasts is false and every swap time is listed
     const rig = columnRig()
     const request = variant(rig, {
       pack: { ...rig.pack, parallelCells: 1, count: 2 },
@@ -145,7 +145,7 @@ describe('time-stepped run', () => {
   })
 
   it('names every stop reason', () => {
-    // Source: engine.md §7: pack cutoff, cannot deliver, amplifier lock-out, pack empty
+    // Source: docs/model.md §7: pack cutoff, cannot deliver, amplifier lock-out, pack empty
     const rig = columnRig()
     const loud = { crestFactorDb: 3.01, peakBelowClipDb: 0 }
     const weak = estimate(
@@ -185,7 +185,7 @@ describe('time-stepped run', () => {
   })
 
   it('keeps the timeline within 500 points from the start to the stop', () => {
-    // Source: engine.md §7: ≤ 500 points for charts
+    // Source: docs/model.md §7: ≤ 500 points for charts
     const result = estimate(columnRig())
     expect(result.timeline.length).toBeLessThanOrEqual(500)
     expect(result.timeline.length).toBeGreaterThan(100)
@@ -196,7 +196,7 @@ describe('time-stepped run', () => {
   })
 
   it('adds up the Wh breakdown to the chemical energy drawn', () => {
-    // Source: engine.md §9: the breakdown sums to the chemical energy drawn within 0.1 %
+    // Source: docs/model.md §9: the breakdown sums to the chemical energy drawn within 0.1 %
     // (conservation of energy: E·I = I²R_pack + I²R_lead + load power)
     const result = estimate(columnRig())
     const parts = Object.values(result.breakdownWh).reduce((sum, value) => sum + value, 0)
@@ -208,7 +208,7 @@ describe('time-stepped run', () => {
   })
 
   it('finds a dropout risk on bass peaks through a thin lead', () => {
-    // Source: engine.md §7: peaks as a sustained sine burst at the lowest state of charge, through
+    // Source: docs/model.md §7: peaks as a sustained sine burst at the lowest state of charge, through
     // pack and lead resistance; 24 AWG over 3 m is about 0.5 ohm round trip (ASTM B258, IEC 60028)
     const rig = columnRig()
     const result = estimate(

@@ -3,7 +3,7 @@ import { estimate } from '../../shared/engine/estimate'
 import { estimateRequestSchema, estimateResultSchema } from '../../shared/schemas/estimate'
 import { columnRig } from './rig-fixtures'
 
-// Source for every check here: engine.md §9 (the contract) and issue 3 item 1: reject what is not
+// Source for every check here: docs/model.md §9 (the contract): reject what is not
 // physical, with a message that names the field in plain words.
 function issuesFor(change: (request: Record<string, unknown>) => void) {
   const request = structuredClone(columnRig()) as unknown as Record<string, unknown>
@@ -157,7 +157,7 @@ describe('estimate request schema', () => {
     expect(result.assumed.map((entry) => entry.field)).toEqual(
       expect.arrayContaining(['pack.cellResistanceOhm', 'amplifier.efficiency', 'temperatureC']),
     )
-    // engine.md §4: class D efficiency 0.88 by default
+    // docs/model.md §4: class D efficiency 0.88 by default
     expect(result.assumed.find((entry) => entry.field === 'amplifier.efficiency')?.value).toBe(0.88)
     for (const entry of result.assumed) expect(entry.source.length).toBeGreaterThan(0)
   })

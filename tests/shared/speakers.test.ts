@@ -14,7 +14,7 @@ describe('speaker loads', () => {
   })
 
   it('shares the channel power equally between identical drivers', () => {
-    // Source: engine.md §3: power per driver = channel power / driver count
+    // Source: docs/model.md §3: power per driver = channel power / driver count
     const wiring = { driverOhm: 8, parallel: 3, banks: 2 }
     expect(driversPerChannel(wiring)).toBe(6)
     expect(powerPerDriverW(30, wiring)).toBe(5)

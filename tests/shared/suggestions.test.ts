@@ -17,7 +17,7 @@ const lasts = (request: Parameters<typeof estimate>[0]) => estimate(request).sch
 
 describe('fix suggestions', () => {
   it('finds the smallest whole-dB level drop that makes the schedule last', () => {
-    // Source: engine.md §5: each dB lower cuts the output by 10^(−0.1); "smallest" means one
+    // Source: docs/model.md §5: each dB lower cuts the output by 10^(−0.1); "smallest" means one
     // dB less would not do
     expect(lasts(shortDay)).toBe(false)
     const fixes = suggestFixes(shortDay)
@@ -34,7 +34,7 @@ describe('fix suggestions', () => {
   })
 
   it('counts the extra packs needed', () => {
-    // Source: engine.md §7: packs swapped at once as each runs out
+    // Source: docs/model.md §7: packs swapped at once as each runs out
     const fixes = suggestFixes(shortDay)
     const extra = fixes.extraPacks!
     expect(extra.count).toBeGreaterThanOrEqual(1)

@@ -12,7 +12,7 @@ function warningFor(request: EstimateRequest, code: WarningCode) {
 
 describe('warnings', () => {
   it('use stable kebab-case codes with a severity', () => {
-    // Source: engine.md §9: codes stable, kebab-case
+    // Source: docs/model.md §9: codes stable, kebab-case
     for (const [code, entry] of Object.entries(WARNING_CATALOGUE)) {
       expect(code).toMatch(/^[a-z0-9]+(-[a-z0-9]+)*$/)
       expect(['info', 'caution', 'danger']).toContain(entry.severity)
@@ -46,7 +46,7 @@ describe('warnings', () => {
   })
 
   it('warn when the lock-out strands energy above the pack cutoff', () => {
-    // Source: engine.md §4: below the lock-out the amplifier mutes; a 17 V lock-out on a pack that
+    // Source: docs/model.md §4: below the lock-out the amplifier mutes; a 17 V lock-out on a pack that
     // cuts off at 15 V (common practice: 5 × 3.0 V) leaves charge unused
     const rig = columnRig()
     const found = warningFor(
@@ -114,7 +114,7 @@ describe('warnings', () => {
   })
 
   it('say what to change in every message of a troubled rig', () => {
-    // Source: engine.md §9: messages say what to change
+    // Source: docs/model.md §9: messages say what to change
     const rig = columnRig()
     const result = estimate(
       variant(rig, {
@@ -139,7 +139,7 @@ describe('warnings', () => {
 
 describe('warning documentation', () => {
   it('lists every code with its severity and meaning in docs/estimate-api.md', () => {
-    // Source: engine.md §9: document the rest in the project
+    // Source: docs/model.md §9: document the rest in the project
     const docs = readFileSync(new URL('../../docs/estimate-api.md', import.meta.url), 'utf8')
     for (const [code, entry] of Object.entries(WARNING_CATALOGUE)) {
       expect(docs, code).toContain(`| \`${code}\` | ${entry.severity} | ${entry.meaning} |`)
