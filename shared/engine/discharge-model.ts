@@ -2,7 +2,13 @@
 // limits a log is read against. Uses the same pack model as the estimate (pack.ts, docs/model.md §1).
 import type { PackSpec } from '../schemas/estimate'
 import { CHEMISTRY_DATA, defaultCellResistanceOhm } from './chemistry'
-import { buildPack, packOpenCircuitV, peukertChargeRateA, type PackInputs } from './pack'
+import {
+  ageingResistanceFactor,
+  buildPack,
+  chargeRateA as packChargeRateA,
+  packOpenCircuitV,
+  type PackInputs,
+} from './pack'
 import { DEFAULT_HEALTH_PCT, DEFAULT_TEMPERATURE_C } from './resolve'
 
 export interface ModelDischargePoint {
@@ -21,16 +27,22 @@ export interface ModelDischarge {
 /** A saved pack's fields with the engine's defaults applied (as resolve.ts does for a rig). */
 export function packInputsOf(spec: PackSpec): PackInputs {
   const chemistry = CHEMISTRY_DATA[spec.chemistry]
+  const healthPct = spec.healthPct ?? DEFAULT_HEALTH_PCT
+  // The same defaults as a rig's pack (resolve.ts): a worn pack's default resistance rises, and
+  // lithium loses a little charge to rate unless a Peukert exponent is given.
   return {
     chemistry: spec.chemistry,
     seriesCells: spec.seriesCells,
     parallelCells: spec.parallelCells,
     cellCapacityAh: spec.cellCapacityAh,
     cellResistanceOhm:
-      spec.cellResistanceOhm ?? defaultCellResistanceOhm(spec.chemistry, spec.cellCapacityAh),
+      spec.cellResistanceOhm ??
+      defaultCellResistanceOhm(spec.chemistry, spec.cellCapacityAh) *
+        ageingResistanceFactor(healthPct),
     cutoffCellV: spec.cutoffCellV ?? chemistry.cutoffCellV,
-    healthPct: spec.healthPct ?? DEFAULT_HEALTH_PCT,
+    healthPct,
     peukertExponent: spec.peukertExponent ?? chemistry.peukertExponent,
+    rateLossPerC: spec.peukertExponent === undefined ? chemistry.rateLossPerC : 0,
   }
 }
 
@@ -59,8 +71,7 @@ export function modelConstantCurrentDischarge(
 ): ModelDischarge {
   const pack = buildPack(packInputsOf(spec), temperatureC)
   if (!(currentA > 0)) return { points: [], deliveredAh: 0, stopReason: 'pack-empty' }
-  const chargeRateA = peukertChargeRateA(currentA, pack.ratedCurrentA, pack.peukertExponent)
-  const emptyS = (pack.capacityAh * 3600) / chargeRateA
+  const emptyS = (pack.capacityAh * 3600) / packChargeRateA(pack, currentA)
   const sagV = currentA * pack.resistanceOhm
   const at = (timeS: number, voltageV: number): ModelDischargePoint => ({
     minute: timeS / 60,
