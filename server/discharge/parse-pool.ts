@@ -1,8 +1,7 @@
 import { availableParallelism } from 'node:os'
 import { Piscina } from 'piscina'
-import type { DischargeSample } from '../../shared/discharge/analyse'
 import { ApiError } from '../http/errors'
-import type { ParsedLog } from './parse-task'
+import type { AnalyseLogTask, AnalysedLog } from './parse-task'
 
 /*
  * Discharge logs are parsed on worker threads, never on the thread that answers requests: a
@@ -28,14 +27,6 @@ function parserPool(): Piscina {
   return pool
 }
 
-function samplesOf(parsed: Extract<ParsedLog, { ok: true }>): DischargeSample[] {
-  return Array.from(parsed.timeS, (timeS, index) => ({
-    timeS,
-    voltageV: parsed.voltageV[index]!,
-    currentA: parsed.currentA[index]!,
-  }))
-}
-
 const busy = () =>
   new ApiError(
     503,
@@ -45,13 +36,22 @@ const busy = () =>
     { 'Retry-After': '30' },
   )
 
-/** Parses an uploaded log off the event loop; a bad log is the same 400/415 as on it. */
-export async function parseLogOffThread(bytes: Uint8Array): Promise<DischargeSample[]> {
+/**
+ * Parses an uploaded log and works out its stored figures off the event loop; a bad log is the
+ * same 400/415 as on it.
+ */
+export async function analyseLogOffThread(
+  bytes: Uint8Array,
+  limits: AnalyseLogTask['limits'],
+): Promise<Extract<AnalysedLog, { ok: true }>> {
   const workers = parserPool()
   if (workers.queueSize >= maxQueuedLogs) throw busy()
-  const parsed = (await workers.run(bytes)) as ParsedLog
-  if (!parsed.ok) throw new ApiError(parsed.status, parsed.code, parsed.message, parsed.issues)
-  return samplesOf(parsed)
+  const task: AnalyseLogTask = { bytes, limits }
+  const analysed = (await workers.run(task)) as AnalysedLog
+  if (!analysed.ok) {
+    throw new ApiError(analysed.status, analysed.code, analysed.message, analysed.issues)
+  }
+  return analysed
 }
 
 /** Ends the parser threads (at shutdown); a later upload starts new ones. */

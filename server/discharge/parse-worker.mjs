@@ -3,6 +3,6 @@
 // loaded through tsx's own scoped import, which works under both.
 import { tsImport } from 'tsx/esm/api'
 
-const { parseLogTask } = await tsImport('./parse-task.ts', import.meta.url)
+const { analyseLogTask } = await tsImport('./parse-task.ts', import.meta.url)
 
-export default parseLogTask
+export default analyseLogTask

@@ -5,8 +5,7 @@ import type { Queryable } from '../db/queryable'
 import { users } from '../db/schema'
 import { dischargeLogs, packs } from '../db/schema-resources'
 import { calibrationOf } from '../discharge/calibration'
-import { parseLogOffThread } from '../discharge/parse-pool'
-import { storedAnalysis } from '../discharge/stored-analysis'
+import { analyseLogOffThread } from '../discharge/parse-pool'
 import { receiveLogFile } from '../discharge/upload'
 import { limitConcurrent } from '../http/concurrency'
 import { ApiError, parseInput } from '../http/errors'
@@ -163,11 +162,21 @@ export function dischargeLogsRouter(context: ResourceContext): Router {
           [{ path: DISCHARGE_LOG_FIELD, message: 'Choose a CSV file' }],
         )
       }
-      const samples = await parseLogOffThread(file.buffer)
+      const limits = dischargeLimitsOf(requirePack(db, teamId, packId).spec)
+      const { analysis, points } = await analyseLogOffThread(file.buffer, limits)
       const nowMs = clock().getTime()
       const userId = signedInUser(req).user.id
       const created = db.transaction((tx) => {
         const pack = requirePack(tx, teamId, packId)
+        const limitsNow = dischargeLimitsOf(pack.spec)
+        // The pack was edited while its log was read: its figures were worked out for the old one.
+        if (limitsNow.cutoffV !== limits.cutoffV || limitsNow.ratedAh !== limits.ratedAh) {
+          throw new ApiError(
+            409,
+            'pack-changed',
+            'The pack was changed while its log was being read. Nothing was stored; send the log again.',
+          )
+        }
         const { id } = tx
           .insert(dischargeLogs)
           .values({
@@ -176,7 +185,8 @@ export function dischargeLogsRouter(context: ResourceContext): Router {
             fileName: cleanFileName(file.originalname),
             uploadedByUserId: userId,
             createdAtMs: nowMs,
-            ...storedAnalysis(samples, dischargeLimitsOf(pack.spec)),
+            analysis,
+            points,
           })
           .returning({ id: dischargeLogs.id })
           .get()
