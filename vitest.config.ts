@@ -8,6 +8,8 @@ import viteConfig from './vite.config.ts'
 // and the API's test files share one module graph per worker (`isolate: false`): the engine is
 // pure, and every API test builds its own app and database, so nothing leaks between files. The
 // component tests mock modules per file (`vi.mock`), so they keep a fresh graph per file.
+const processStateTests = ['tests/server/operations.test.ts', 'tests/server/upload-limits.test.ts']
+
 export default mergeConfig(
   viteConfig,
   defineConfig({
@@ -28,11 +30,25 @@ export default mergeConfig(
           test: {
             name: 'server',
             include: ['tests/server/**/*.test.ts'],
+            exclude: processStateTests,
             environment: 'node',
             pool: 'threads',
             isolate: false,
             testTimeout: 20_000,
             // The first fixture of a worker hashes a password (argon2) and migrates a database.
+            hookTimeout: 20_000,
+          },
+        },
+        {
+          // Tests of the process itself (its umask, its worker threads and sockets under load)
+          // run in a forked process of their own: a worker thread cannot set the umask.
+          extends: true,
+          test: {
+            name: 'server-process',
+            include: processStateTests,
+            environment: 'node',
+            pool: 'forks',
+            testTimeout: 20_000,
             hookTimeout: 20_000,
           },
         },
