@@ -35,7 +35,9 @@ describe('event plans', () => {
     // The list shows the swap the server stored, on the event clock.
     const me = await (await page.request.get(`${app.server.url}/api/v1/auth/me`)).json()
     const list = await (
-      await page.request.get(`${app.server.url}/api/v1/teams/${me.teams[0].id}/plans?q=Saturday`)
+      await page.request.get(
+        `${app.server.url}/api/v1/teams/${me.teams[0].id}/plans?q=Saturday%20market`,
+      )
     ).json()
     const swapTimes: string[] = list.items[0].summary.swaps.map(
       (swap: { atTime: string }) => swap.atTime,
@@ -49,7 +51,7 @@ describe('event plans', () => {
     const me = await (await page.request.get(`${app.server.url}/api/v1/auth/me`)).json()
     const teamId = me.teams[0].id as number
     const plansUrl = `${app.server.url}/api/v1/teams/${teamId}/plans`
-    const demo = (await (await page.request.get(`${plansUrl}?q=Saturday`)).json()).items[0]
+    const demo = (await (await page.request.get(`${plansUrl}?q=Saturday%20market`)).json()).items[0]
     // The demo day on the demo rig, swapping at the first break with the pack below half.
     const created = await page.request.post(plansUrl, {
       data: {
