@@ -24,6 +24,16 @@ export function eventsRouter(context: ResourceContext): Router {
     const body = parseInput(eventPreviewSchema, req.body)
     res.json(answerFor(context.db, teamMembership(req).teamId, body))
   })
+  // Every read of an event works its answer out again (it follows its plans and rigs), so reads
+  // are limited per account too; ours: generous for people, a wall for a script.
+  const readThrottle = throttle({
+    name: 'event_reads',
+    windowMs: minuteMs,
+    limit: 300,
+    key: (req) => (req.auth ? String(req.auth.user.id) : undefined),
+    message: 'Too many event reads from this account. Wait a minute and try again.',
+  })
+  router.use((req, res, next) => (req.method === 'GET' ? readThrottle(req, res, next) : next()))
   router.use(teamResourceRouter(context, eventDefinition))
   return router
 }
