@@ -55,6 +55,12 @@ export default tseslint.config(
               message: 'Use naiveDarkTheme from src/theme/naiveDark.ts.',
             },
           ],
+          patterns: [
+            {
+              regex: '^(\\.\\./)+shared(/|$)',
+              message: 'Import shared code through the @shared/ alias.',
+            },
+          ],
         },
       ],
     },

@@ -86,7 +86,11 @@ export default defineConfig({
   ],
   define: { __APP_VERSION__: JSON.stringify(packageJson.version) },
   resolve: {
-    alias: { '@': fileURLToPath(new URL('./src', import.meta.url)) },
+    // `@/` is the client's own code, `@shared/` the pure domain code it shares with the server.
+    alias: {
+      '@': fileURLToPath(new URL('./src', import.meta.url)),
+      '@shared': fileURLToPath(new URL('./shared', import.meta.url)),
+    },
   },
   build: {
     outDir: 'dist',

@@ -1,4 +1,4 @@
-import type { MeResponse, SignUpAccepted } from '../../shared/schemas/account-responses'
+import type { MeResponse, SignUpAccepted } from '@shared/schemas/account-responses'
 import type {
   EmailVerificationConfirmInput,
   PasswordChangeInput,
@@ -7,7 +7,7 @@ import type {
   ProfileUpdateInput,
   SignInInput,
   SignUpInput,
-} from '../../shared/schemas/auth'
+} from '@shared/schemas/auth'
 import { apiRequest } from './http'
 
 // The accounts API (docs/api.md, "Accounts"); the session itself lives in an HttpOnly cookie.

@@ -6,7 +6,7 @@ import type {
   ShareLinkBody,
   ShareLinkList,
   SharedCardResponse,
-} from '../../shared/card/schemas'
+} from '@shared/card/schemas'
 import { apiRequest } from './http'
 
 // A plan's runtime card, its share links and card e-mails (docs/api.md, "The team's parts, rigs and plans"),

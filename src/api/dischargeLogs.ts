@@ -1,10 +1,10 @@
-import type { PackItem } from '../../shared/schemas/resources'
+import type { PackItem } from '@shared/schemas/resources'
 import {
   DISCHARGE_LOG_FIELD,
   type AcceptDischargeLogInput,
   type DischargeLogDetail,
   type DischargeLogSummary,
-} from '../../shared/discharge/log'
+} from '@shared/discharge/log'
 import { ApiRequestError, apiRequest, reportUnauthorized } from './http'
 
 // A saved pack's measured discharges (docs/api.md, "The team's parts, rigs and plans").

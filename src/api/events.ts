@@ -1,10 +1,5 @@
-import type { SharedEventCardResponse } from '../../shared/schemas/events'
-import type {
-  EventAnswer,
-  EventBody,
-  EventItem,
-  EventPreviewBody,
-} from '../../shared/schemas/events'
+import type { SharedEventCardResponse } from '@shared/schemas/events'
+import type { EventAnswer, EventBody, EventItem, EventPreviewBody } from '@shared/schemas/events'
 import { apiRequest } from './http'
 import { resourceApi } from './resources'
 

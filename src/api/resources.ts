@@ -12,7 +12,7 @@ import type {
   RigItem,
   SpeakersBody,
   SpeakersItem,
-} from '../../shared/schemas/resources'
+} from '@shared/schemas/resources'
 import { apiRequest } from './http'
 
 // The team's parts library and saved rigs (docs/api.md, "The team's parts, rigs and plans").

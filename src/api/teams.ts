@@ -4,13 +4,13 @@ import type {
   MemberView,
   OutboxMessageView,
   TeamView,
-} from '../../shared/schemas/account-responses'
+} from '@shared/schemas/account-responses'
 import type {
   InvitationCreateInput,
   MemberUpdateInput,
   TeamCreateInput,
   TeamUpdateInput,
-} from '../../shared/schemas/teams'
+} from '@shared/schemas/teams'
 import { apiRequest } from './http'
 
 // Teams, members, invitations and the local mail catcher (docs/api.md, "Teams").

@@ -1,9 +1,9 @@
 import { computed, ref, watch, type Ref } from 'vue'
 import * as logsApi from '@/api/dischargeLogs'
 import { packsApi } from '@/api/resources'
-import type { PackItem } from '../../shared/schemas/resources'
-import type { DischargeLogDetail, DischargeLogSummary } from '../../shared/discharge/log'
-import { modelConstantCurrentDischarge } from '../../shared/engine/discharge-model'
+import type { PackItem } from '@shared/schemas/resources'
+import type { DischargeLogDetail, DischargeLogSummary } from '@shared/discharge/log'
+import { modelConstantCurrentDischarge } from '@shared/engine/discharge-model'
 import { useTeamAccess } from './useTeamAccess'
 
 const messageOf = (caught: unknown, fallback: string) =>

@@ -1,6 +1,6 @@
 import { computed, effectScope, inject, provide, type ComputedRef, type InjectionKey } from 'vue'
-import { estimate } from '../../shared/engine'
-import type { EstimateRequest, EstimateResult } from '../../shared/schemas/estimate'
+import { estimate } from '@shared/engine'
+import type { EstimateRequest, EstimateResult } from '@shared/schemas/estimate'
 import { useRigDraftStore } from '@/stores/rigDraft'
 
 export interface EstimateState {

@@ -1,14 +1,14 @@
 import { computed, reactive, ref, watch, type Ref } from 'vue'
 import { eventsApi, previewEvent } from '@/api/events'
 import { plansApi } from '@/api/plans'
-import type { PlanItem } from '../../shared/schemas/plans'
+import type { PlanItem } from '@shared/schemas/plans'
 import {
   eventPreviewSchema,
   type EventAnswer,
   type EventBody,
   type EventCharger,
   type EventItem,
-} from '../../shared/schemas/events'
+} from '@shared/schemas/events'
 
 /** The event being edited: its fields, the team's plans to pick from, and the live answer. */
 export function useEventEditor(teamId: Ref<number | undefined>, eventId: Ref<number | undefined>) {

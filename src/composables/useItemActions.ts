@@ -1,7 +1,7 @@
 import { h } from 'vue'
 import { NButton, useMessage } from 'naive-ui'
 import { useAppDialog } from '@/composables/useAppDialog'
-import type { DetachedRigs } from '../../shared/schemas/resources'
+import type { DetachedRigs } from '@shared/schemas/resources'
 
 interface NamedItem {
   id: number

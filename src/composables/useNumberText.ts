@@ -1,5 +1,5 @@
 import { inject, onBeforeUnmount, provide, ref, useId, type InjectionKey } from 'vue'
-import { revertedNumberNote, unreadableNumberMessage } from '@/utils/numberText'
+import { revertedNumberNote, unreadableNumberMessage } from '@/display/numberText'
 
 /** Hears, for each number field below a page (by an id of the field's own), its unreadable text. */
 export type NumberTextReport = (fieldId: string, message: string | null) => void

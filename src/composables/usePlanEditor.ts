@@ -3,14 +3,14 @@ import { ApiRequestError } from '@/api/http'
 import { plansApi } from '@/api/plans'
 import { packsApi, rigsApi } from '@/api/resources'
 import { bodyOfDraft, draftFromPlan, emptyDraft, type PlanDraft } from '@/components/plan/planDraft'
-import { planEstimateRequest } from '../../shared/plans/request'
+import { planEstimateRequest } from '@shared/plans/request'
 import {
   estimateRequestSchema,
   type EstimateRequest,
   type PackSpec,
-} from '../../shared/schemas/estimate'
-import { planBodySchema, type PlanBody, type PlanItem } from '../../shared/schemas/plans'
-import type { PackItem, RigItem } from '../../shared/schemas/resources'
+} from '@shared/schemas/estimate'
+import { planBodySchema, type PlanBody, type PlanItem } from '@shared/schemas/plans'
+import type { PackItem, RigItem } from '@shared/schemas/resources'
 import { useTeamAccess } from './useTeamAccess'
 
 const LIST_ALL = { limit: 200, sort: 'name' } as const

@@ -1,10 +1,10 @@
 import { computed, type Ref } from 'vue'
-import { estimate, suggestFixes } from '../../shared/engine'
-import { libraryPacks } from '../../shared/library'
-import { clockLabel } from '../../shared/plans/clock'
-import { segmentEnergies } from '../../shared/plans/segment-energy'
-import type { EstimateRequest, PackSpec } from '../../shared/schemas/estimate'
-import type { PackItem } from '../../shared/schemas/resources'
+import { estimate, suggestFixes } from '@shared/engine'
+import { libraryPacks } from '@shared/library'
+import { clockLabel } from '@shared/plans/clock'
+import { segmentEnergies } from '@shared/plans/segment-energy'
+import type { EstimateRequest, PackSpec } from '@shared/schemas/estimate'
+import type { PackItem } from '@shared/schemas/resources'
 
 /** A pack the plan can be compared on or switched to: built-in, or one of the team's own. */
 export interface CandidatePack {

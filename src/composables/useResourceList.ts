@@ -1,7 +1,7 @@
 import { computed, ref, watch } from 'vue'
 import type { DataTableSortState } from 'naive-ui'
 import type { ResourceApi } from '@/api/resources'
-import type { DetachedRigs, SortField } from '../../shared/schemas/resources'
+import type { DetachedRigs, SortField } from '@shared/schemas/resources'
 import { useTeamAccess } from './useTeamAccess'
 
 export type SortValue = SortField | `-${SortField}`

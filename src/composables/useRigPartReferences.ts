@@ -2,14 +2,9 @@ import { computed, type ComputedRef } from 'vue'
 import { accessoriesApi, amplifiersApi, packsApi, speakersApi } from '@/api/resources'
 import { partFingerprint } from '@/components/bench/partFingerprint'
 import { useRigDraftStore } from '@/stores/rigDraft'
-import type { LibraryItem } from '../../shared/library'
-import type {
-  AccessorySpec,
-  AmplifierSpec,
-  PackSpec,
-  SpeakersSpec,
-} from '../../shared/schemas/estimate'
-import type { RigBody } from '../../shared/schemas/resources'
+import type { LibraryItem } from '@shared/library'
+import type { AccessorySpec, AmplifierSpec, PackSpec, SpeakersSpec } from '@shared/schemas/estimate'
+import type { RigBody } from '@shared/schemas/resources'
 import { savedPartId, useTeamParts } from './useTeamParts'
 
 export type RigPartReferences = Pick<

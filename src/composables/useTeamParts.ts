@@ -1,7 +1,7 @@
 import { computed } from 'vue'
 import type { ResourceApi } from '@/api/resources'
-import type { LibraryItem } from '../../shared/library'
-import { LIST_LIMIT_MAX, type SavedItemMeta } from '../../shared/schemas/resources'
+import type { LibraryItem } from '@shared/library'
+import { LIST_LIMIT_MAX, type SavedItemMeta } from '@shared/schemas/resources'
 import { useResourceList } from './useResourceList'
 
 /** Prefix of a team part's picker id, so it never collides with a built-in library id. */

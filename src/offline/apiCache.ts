@@ -1,4 +1,4 @@
-import { OFFLINE_API_CACHE, OFFLINE_PUBLIC_API_PREFIXES } from '../../shared/offline'
+import { OFFLINE_API_CACHE, OFFLINE_PUBLIC_API_PREFIXES } from '@shared/offline'
 
 /**
  * Forgets the API answers kept for offline use that belong to an account, so that nothing of it

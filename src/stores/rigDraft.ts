@@ -1,6 +1,6 @@
 import { defineStore } from 'pinia'
 import { computed, reactive, ref, watch } from 'vue'
-import { exampleRigs } from '../../shared/library'
+import { exampleRigs } from '@shared/library'
 import {
   estimateRequestSchema,
   type AccessorySpec,
@@ -11,7 +11,7 @@ import {
   type ProgrammeSpec,
   type SpeakerLeadsSpec,
   type SpeakersSpec,
-} from '../../shared/schemas/estimate'
+} from '@shared/schemas/estimate'
 
 /** Every field may be missing while someone is typing: the schema says what is still wanted. */
 type Editable<T> = { [K in keyof T]?: T[K] | undefined }

@@ -2,7 +2,7 @@ import { defineStore } from 'pinia'
 import { computed, ref, watch } from 'vue'
 import { rigsApi } from '@/api/resources'
 import type { RigPartReferences } from '@/composables/useRigPartReferences'
-import type { RigBody, RigItem } from '../../shared/schemas/resources'
+import type { RigBody, RigItem } from '@shared/schemas/resources'
 import { useRigDraftStore } from './rigDraft'
 
 /** Which saved rig the bench holds, and the version and values it was opened or saved at. */

@@ -3,8 +3,8 @@ import { computed, ref } from 'vue'
 import * as authApi from '@/api/auth'
 import { ApiRequestError } from '@/api/http'
 import { forgetOfflineAnswers } from '@/offline/apiCache'
-import type { MeResponse, TeamView } from '../../shared/schemas/account-responses'
-import type { SignInInput, SignUpInput } from '../../shared/schemas/auth'
+import type { MeResponse, TeamView } from '@shared/schemas/account-responses'
+import type { SignInInput, SignUpInput } from '@shared/schemas/auth'
 
 const currentTeamKey = 'loudhour.current-team.v1'
 

@@ -1,7 +1,7 @@
 import { createEvents, type DateArray, type EventAttributes } from 'ics'
 import Papa from 'papaparse'
-import { addDays, eventClock } from '../../shared/plans/clock'
-import type { ScheduleSegment } from '../../shared/schemas/estimate'
+import { addDays, eventClock } from '@shared/plans/clock'
+import type { ScheduleSegment } from '@shared/schemas/estimate'
 
 // The day's swap schedule as files for the crew: a spreadsheet (CSV) and a calendar (iCalendar,
 // RFC 5545) with a reminder before each swap. Times are the event's local wall clock ("floating"

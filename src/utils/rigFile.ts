@@ -1,4 +1,4 @@
-import { estimateRequestSchema, type EstimateRequest } from '../../shared/schemas/estimate'
+import { estimateRequestSchema, type EstimateRequest } from '@shared/schemas/estimate'
 
 // Loudhour's own rig file: a small envelope that names itself, so a foreign JSON file is told
 // apart from a damaged one, and a version for when the rig's shape changes.

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest'
-import { revertedNumberNote, unreadableNumberMessage } from '@/utils/numberText'
+import { revertedNumberNote, unreadableNumberMessage } from '@/display/numberText'
 
 describe('what a number field says about typed text', () => {
   it('says nothing for numbers, empty fields and a number still being typed', () => {

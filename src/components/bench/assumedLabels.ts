@@ -1,8 +1,8 @@
 // Plain names and shown values for the defaults the engine lists in `result.assumed`, so the
 // "What the estimate assumed" table never shows a field path or a bare fraction.
-import type { AssumedValue, EstimateRequest } from '../../../shared/schemas/estimate'
-import { formatNumber, withUnit } from './format'
-import { milliOhm, percentOfOne, showQuantity, type DisplayQuantity } from './units'
+import type { AssumedValue, EstimateRequest } from '@shared/schemas/estimate'
+import { formatNumber, withUnit } from '@/display/format'
+import { milliOhm, percentOfOne, showQuantity, type DisplayQuantity } from '@/display/units'
 
 interface AssumedField {
   label: string

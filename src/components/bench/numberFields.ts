@@ -1,4 +1,4 @@
-import type { DisplayQuantity } from './units'
+import type { DisplayQuantity } from '@/display/units'
 
 /** One numeric field of a form, declared as data so forms read like a table of their fields. */
 export interface NumberFieldSpec<Key extends string = string> {

@@ -1,6 +1,6 @@
 import type { ChartPalette } from '@/theme/themes'
 import { tickOptions } from '@/components/bench/charts/register'
-import { eventClock } from '../../../shared/events/words'
+import { eventClock } from '@shared/events/words'
 
 // Ticks on whole half-hours or hours (08:00, 09:00 …), at most seven, so a crew reads the axis
 // as a clock rather than at odd minutes.

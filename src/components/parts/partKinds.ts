@@ -1,11 +1,5 @@
 import type { z } from 'zod'
-import {
-  mass,
-  milliOhm,
-  percentOfOne,
-  showQuantity,
-  type DisplayQuantity,
-} from '@/components/bench/units'
+import { mass, milliOhm, percentOfOne, showQuantity, type DisplayQuantity } from '@/display/units'
 import {
   accessoriesApi,
   amplifiersApi,
@@ -18,19 +12,15 @@ import {
   libraryAmplifiers,
   libraryPacks,
   librarySpeakers,
-} from '../../../shared/library'
-import {
-  ACCESSORY_FEEDS,
-  AMPLIFIER_CLASSES,
-  CHEMISTRY_VALUES,
-} from '../../../shared/schemas/estimate'
+} from '@shared/library'
+import { ACCESSORY_FEEDS, AMPLIFIER_CLASSES, CHEMISTRY_VALUES } from '@shared/schemas/estimate'
 import {
   accessoryBodySchema,
   amplifierBodySchema,
   packBodySchema,
   speakersBodySchema,
   type SavedItemMeta,
-} from '../../../shared/schemas/resources'
+} from '@shared/schemas/resources'
 
 // The four kinds of part as data: the form fields (datasheet values, with their units), the
 // columns of the tables, the shared schema that checks a form, and the built-in library beside.

@@ -1,9 +1,9 @@
 // Names for the packs of a comparison that can be told apart in a narrow chart: the pack's own
 // name (shortened in the middle, where tool-pack names repeat themselves least), and beneath it
 // what the pack is in figures, which differs between packs even when names are alike.
-import { CHEMISTRY_DATA } from '../../../shared/engine'
-import type { PackSpec } from '../../../shared/schemas/estimate'
-import { formatNumber, withUnit } from '@/components/bench/format'
+import { CHEMISTRY_DATA } from '@shared/engine'
+import type { PackSpec } from '@shared/schemas/estimate'
+import { formatNumber, withUnit } from '@/display/format'
 
 /** "18 V · 5.0 Ah · 5S2P": nominal voltage, rated charge and cells, short enough for a phone. */
 export function packFigures(spec: PackSpec): string {

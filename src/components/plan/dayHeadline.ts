@@ -1,6 +1,6 @@
-import { formatHours } from '@/components/bench/format'
-import { clockLabel } from '../../../shared/plans/clock'
-import type { EstimateResult } from '../../../shared/schemas/estimate'
+import { formatHours } from '@/display/format'
+import { clockLabel } from '@shared/plans/clock'
+import type { EstimateResult } from '@shared/schemas/estimate'
 
 /** Whether the day lasts, in one sentence on the event clock ("Lasts the day, to 14:00."). */
 export function dayHeadline(schedule: EstimateResult['schedule'], startTime: string): string {

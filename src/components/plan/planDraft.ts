@@ -1,9 +1,9 @@
 // The plan as its form holds it, and the list operations on its segments. A draft becomes a plan
 // body once the shared schema passes; until then the schema's messages say what is missing.
-import { PROGRAMME_PRESETS } from '../../../shared/engine'
-import type { ScheduleSegment, SegmentState, SwapPolicy } from '../../../shared/schemas/estimate'
-import type { PlanItem } from '../../../shared/schemas/plans'
-import { DEFAULT_SWAP_BELOW_SOC_PCT } from '../../../shared/engine/resolve'
+import { PROGRAMME_PRESETS } from '@shared/engine'
+import type { ScheduleSegment, SegmentState, SwapPolicy } from '@shared/schemas/estimate'
+import type { PlanItem } from '@shared/schemas/plans'
+import { DEFAULT_SWAP_BELOW_SOC_PCT } from '@shared/engine/resolve'
 
 type Editable<T> = { [K in keyof T]?: T[K] | undefined }
 

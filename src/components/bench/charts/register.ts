@@ -10,7 +10,7 @@ import {
   type ChartOptions,
 } from 'chart.js'
 import { computed, type ComputedRef } from 'vue'
-import { formatElapsed } from '../format'
+import { formatElapsed } from '@/display/format'
 import { usePreferencesStore } from '@/stores/preferences'
 import { darkChartPalette, lightChartPalette, type ChartPalette } from '@/theme/themes'
 

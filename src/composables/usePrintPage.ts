@@ -1,5 +1,5 @@
 import { onBeforeUnmount, watchEffect, type Ref } from 'vue'
-import { PAPER, type PaperSize } from './paper'
+import { PAPER, type PaperSize } from '../components/card/paper'
 
 /**
  * Sets the printed page's size and margins while the card view is open (`@page` cannot be

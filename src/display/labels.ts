@@ -1,12 +1,12 @@
 // Plain words for the engine's codes, in the bench's own voice.
-import type { Chemistry } from '../../../shared/engine'
+import type { Chemistry } from '@shared/engine'
 import type {
   AirlineClass,
   AmplifierSpec,
   ConverterVerdict,
   AccessorySpec,
   StopReason,
-} from '../../../shared/schemas/estimate'
+} from '@shared/schemas/estimate'
 
 export const amplifierClassLabels: Record<AmplifierSpec['class'], string> = {
   d: 'D (switching)',

@@ -1,4 +1,4 @@
-import type { EstimateWarning } from '../../../shared/schemas/estimate'
+import type { EstimateWarning } from '@shared/schemas/estimate'
 
 /**
  * The warnings that make a rig unfit to use as it stands (severity `danger`), which a headline

@@ -1,4 +1,4 @@
-import type { TimelinePoint } from '../../../shared/schemas/estimate'
+import type { TimelinePoint } from '@shared/schemas/estimate'
 
 /** About `count` points spread evenly over the run (first and last included), for the tables. */
 export function sampleTimeline(timeline: readonly TimelinePoint[], count: number): TimelinePoint[] {

@@ -8,7 +8,7 @@ import {
   kilogramsToPounds,
   metresToFeet,
   poundsToKilograms,
-} from '../../../shared/units'
+} from '@shared/units'
 import { usePreferencesStore } from '@/stores/preferences'
 import { formatNumber, withUnit } from './format'
 
