@@ -6,6 +6,14 @@ import type { AccountsContext } from './context'
 import { issueEmailVerification } from './email-verifications'
 import { hashPassword } from './passwords'
 
+/** What a sign-up did: the mail to send, and the account the address belongs to now. */
+export interface SignUpOutcome {
+  mail: MailMessage
+  accountId: number
+  /** False when the address had an account already (it is only reminded). */
+  accountCreated: boolean
+}
+
 /**
  * The work of a sign-up, done after the answer has gone (the same answer for every address): a
  * new address gets an account and a confirmation link; one that has an account is told so, with
@@ -14,11 +22,15 @@ import { hashPassword } from './passwords'
 export async function completeSignUp(
   context: Pick<AccountsContext, 'db' | 'clock' | 'publicUrl'>,
   input: SignUpInput,
-): Promise<MailMessage> {
+): Promise<SignUpOutcome> {
   const { db, clock, publicUrl } = context
-  const remind = () =>
-    accountExistsMail({ to: input.email, url: pageAt(publicUrl, '/forgot-password') })
-  if (findUserByEmail(db, input.email)) return remind()
+  const remind = (accountId: number): SignUpOutcome => ({
+    mail: accountExistsMail({ to: input.email, url: pageAt(publicUrl, '/forgot-password') }),
+    accountId,
+    accountCreated: false,
+  })
+  const existing = findUserByEmail(db, input.email)
+  if (existing) return remind(existing.id)
   const passwordHash = await hashPassword(input.password)
   let userId: number
   try {
@@ -29,9 +41,17 @@ export async function completeSignUp(
     )
   } catch (error) {
     // Two sign-ups with one address at once: the unique index lets only one through.
-    if (findUserByEmail(db, input.email)) return remind()
+    const winner = findUserByEmail(db, input.email)
+    if (winner) return remind(winner.id)
     throw error
   }
   const token = issueEmailVerification(db, userId, clock().getTime())
-  return emailVerificationMail({ to: input.email, url: linkTo(publicUrl, '/verify-email', token) })
+  return {
+    mail: emailVerificationMail({
+      to: input.email,
+      url: linkTo(publicUrl, '/verify-email', token),
+    }),
+    accountId: userId,
+    accountCreated: true,
+  }
 }

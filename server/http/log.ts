@@ -84,11 +84,13 @@ export function requestLog(logger: Logger): RequestHandler {
 
 /** The names of the events an operator may filter on; add new ones here. */
 export type SecurityEventName =
+  | 'sign-up'
   | 'sign-in-failed'
   | 'request-refused'
   | 'password-changed'
   | 'password-reset-requested'
   | 'password-reset-completed'
+  | 'email-verification-resent'
   | 'email-verified'
   | 'role-changed'
   | 'member-removed'

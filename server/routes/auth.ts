@@ -163,7 +163,16 @@ export function authRouter(context: AccountsContext): Router {
       message: `Check your mail at ${input.email}: the message there says how to go on.`,
     }
     res.status(202).json(answer)
-    mail.sendInBackground(() => completeSignUp(context, input))
+    mail.sendInBackground(async () => {
+      const outcome = await completeSignUp(context, input)
+      // Logged after the answer, like a reset request: many sign-ups naming existing accounts
+      // from one address is how someone tests which addresses have one.
+      securityEvent(req, 'sign-up', {
+        accountId: outcome.accountId,
+        accountCreated: outcome.accountCreated,
+      })
+      return outcome.mail
+    })
   })
 
   router.post('/sign-in', ...signInThrottles(), async (req, res) => {
@@ -266,6 +275,7 @@ export function authRouter(context: AccountsContext): Router {
       throw new ApiError(409, 'already-verified', 'This address is confirmed already.')
     }
     const token = issueEmailVerification(db, user.id, clock().getTime())
+    securityEvent(req, 'email-verification-resent')
     mail.sendInBackground(
       emailVerificationMail({
         to: user.email,

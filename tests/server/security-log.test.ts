@@ -1,7 +1,7 @@
 import request from 'supertest'
 import { afterEach, describe, expect, it } from 'vitest'
 import { otherStrongPassword, strongPassword } from '../helpers/accounts'
-import { captureLog, type LogCapture } from '../helpers/log-capture'
+import { captureLog, type LogCapture, type LogLine } from '../helpers/log-capture'
 import { createTeamFixture, type TeamFixture } from '../helpers/team-fixture'
 import { constantCurrentSamples, csvOf, plainCells, plainHeader } from '../helpers/discharge-logs'
 
@@ -25,6 +25,11 @@ async function start(): Promise<{ fixture: TeamFixture; log: LogCapture }> {
 }
 
 const newPassword = 'violet harbour climbs early 58'
+
+/** The account a logged sign-up made (the one that was not there before). */
+function newSignUpId(signUps: LogLine[]): unknown {
+  return signUps.find((entry) => entry.accountCreated === true)?.accountId
+}
 
 /** The account id behind a cookie, from the API itself. */
 async function idOf(app: TeamFixture, cookie: string): Promise<number> {
@@ -214,6 +219,48 @@ describe('the security log', { timeout: 60_000 }, () => {
     }
     // The CSV body stays out too.
     expect(text).not.toContain('time_s,voltage_v')
+  })
+
+  it('logs sign-ups (new or existing address) and resent confirmations, never the address', async () => {
+    const { fixture, log } = await start()
+    const { app } = fixture.testApp
+    const from = '198.51.100.41'
+    const newcomer = 'first-timer@crew.example'
+    for (const email of [newcomer, fixture.emails.target]) {
+      await request(app)
+        .post('/api/v1/auth/sign-up')
+        .set('X-Forwarded-For', from)
+        .send({ email, name: 'Sam', password: strongPassword })
+        .expect(202)
+    }
+    await fixture.testApp.mail.settled()
+    const targetId = Number(fixture.placeholders.userId)
+    // OWASP Logging Cheat Sheet: log account creation; a run of sign-ups naming existing
+    // accounts from one address is an enumeration attempt the operator should be able to see.
+    const signUps = log.events('sign-up')
+    expect(signUps).toHaveLength(2)
+    expect(signUps).toContainEqual(
+      expect.objectContaining({ ip: from, accountCreated: true, accountId: expect.any(Number) }),
+    )
+    expect(signUps).toContainEqual(
+      expect.objectContaining({ ip: from, accountCreated: false, accountId: targetId }),
+    )
+
+    const newcomerSignIn = await request(app)
+      .post('/api/v1/auth/sign-in')
+      .send({ email: newcomer, password: strongPassword })
+      .expect(200)
+    const cookie = (newcomerSignIn.headers['set-cookie'] as unknown as string[])[0]!.split(';')[0]!
+    await request(app)
+      .post('/api/v1/auth/email-verification')
+      .set('Cookie', cookie)
+      .set('X-Forwarded-For', from)
+      .expect(202)
+    expect(log.events('email-verification-resent')).toEqual([
+      expect.objectContaining({ ip: from, accountId: newSignUpId(signUps) }),
+    ])
+    expect(log.text()).not.toContain(newcomer)
+    expect(log.text()).not.toContain(strongPassword)
   })
 
   it('censors secret-named fields a caller passes by mistake', async () => {
