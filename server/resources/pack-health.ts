@@ -15,9 +15,10 @@ import type { PackSpec } from '../../shared/schemas/estimate'
 
 type RigRow = typeof rigs.$inferSelect
 
-// The packs on hand belong to the rig, not to the pack (as the bench matches a saved part), and
-// the health figure is what is being replaced.
-const fieldsNotCompared: readonly string[] = ['count', 'healthPct']
+// Fields outside the pack's electrical model: a health figure measured against the pack holds for
+// a copy that differs only in these. The packs on hand belong to the rig, the name, mass and price
+// do not enter a discharge, and the health figure is what is being replaced.
+const fieldsNotCompared: readonly string[] = ['count', 'label', 'massKg', 'price', 'healthPct']
 
 /** The pack fields in which a rig's copy differs from the pack as saved, in a stable order. */
 function differingFields(copy: PackSpec, saved: PackSpec): string[] {
@@ -50,9 +51,9 @@ function keepsBecause(
 
 /**
  * What making `healthPct` the pack's health figure does to the team's rigs and plans. A rig takes
- * it when it was saved with this pack and its copy of the pack is the pack as saved now (apart
- * from the packs on hand and the health figure itself): the log was read against that pack. Every
- * other rig, and the plans on it, keep their figures, each with the reason.
+ * it when it was saved with this pack and its copy of the pack is the pack as saved now in every
+ * field a discharge depends on: the log was read against that pack. Every other rig, and the plans
+ * on it, keep their figures, each with the reason.
  */
 export function packHealthEffect(
   tx: Queryable,
