@@ -61,7 +61,7 @@ describe('what applying a measured health changes', () => {
       // The pack form's own labels for the fields that differ.
       'Column on other cells, because it has its own copy of the pack, which differs in cell capacity, cutoff per cell: the log was read against the pack as saved.',
       'Twin column, because it already uses this figure.',
-      'Spare column ("Spare"), Sports day column, because they use other packs.',
+      'Spare column (on "Spare"), Sports day column, because they use other packs.',
     ])
     const plans = panel.get('[data-testid="health-effect-plans"]').findAll('li')
     expect(plans.map((item) => item.text())).toEqual(['Market Saturday (rig Market stage column)'])
@@ -89,7 +89,7 @@ describe('what applying a measured health changes', () => {
     expect(panel.get('[data-testid="health-effect-taking"]').text()).toBe(
       'No rig will take the figure: only the pack gets it.',
     )
-    expect(panel.text()).toContain('Spare column ("Spare"), because it uses another pack.')
+    expect(panel.text()).toContain('Spare column (on "Spare"), because it uses another pack.')
     expect(panel.find('[data-testid="health-effect-plans"]').exists()).toBe(false)
     expect(panel.get('[data-testid="health-effect-kept-plans"]').text()).toBe(
       'The plan School sports day keeps its figures, because its rig keeps its own.',
