@@ -72,43 +72,6 @@ function checkPartReferences({ tx, teamId }: WriteScope, body: RigBody): void {
   }
 }
 
-/**
- * A measured health figure accepted for a pack reaches the rigs that use it: each such rig's copy
- * of the pack takes the figure (a new rig version), and the rig's and its plans' summaries are
- * worked out again. Returns the rigs changed.
- */
-export function carryPackHealthToRigs(
-  tx: Queryable,
-  teamId: number,
-  packId: number,
-  healthPct: number,
-  actor: { nowMs: number; userId: number },
-): { id: number; name: string }[] {
-  const using = tx
-    .select()
-    .from(rigs)
-    .where(and(eq(rigs.teamId, teamId), eq(rigs.packId, packId)))
-    .orderBy(rigs.name, rigs.id)
-    .all()
-  for (const rig of using) {
-    const spec = { ...rig.spec, pack: { ...rig.spec.pack, healthPct } }
-    const summary = summariseRig(spec)
-    tx.update(rigs)
-      .set({
-        spec,
-        summary,
-        summaryEngineVersion: summary.engineVersion,
-        version: rig.version + 1,
-        updatedAtMs: actor.nowMs,
-        updatedByUserId: actor.userId,
-      })
-      .where(eq(rigs.id, rig.id))
-      .run()
-    recomputePlansOfRig(tx, rig.id, spec)
-  }
-  return using.map((rig) => ({ id: rig.id, name: rig.name }))
-}
-
 /** Saved rigs: `/api/v1/teams/:teamId/rigs`. The server runs the engine at every save. */
 export const rigDefinition: ResourceDefinition<typeof rigs, RigBody, RigItem> = {
   rows: ownedRowsOf(rigs),

@@ -1,3 +1,4 @@
+import type { PackHealthEffect } from '@shared/discharge/health-effect'
 import type { PackItem } from '@shared/schemas/resources'
 import {
   DISCHARGE_LOG_FIELD,
@@ -21,6 +22,10 @@ export const getDischargeLog = (teamId: number, packId: number, logId: number) =
 export const deleteDischargeLog = (teamId: number, packId: number, logId: number) =>
   apiRequest<void>(`${base(teamId, packId)}/${logId}`, { method: 'DELETE' })
 
+/** Which rigs and plans would take the log's health figure now, and why the others would not. */
+export const previewAcceptDischargeLog = (teamId: number, packId: number, logId: number) =>
+  apiRequest<PackHealthEffect>(`${base(teamId, packId)}/${logId}/accept-preview`)
+
 export const acceptDischargeLog = (
   teamId: number,
   packId: number,
@@ -32,6 +37,8 @@ export const acceptDischargeLog = (
     log: DischargeLogDetail
     /** The rigs using the pack, which now run with its measured health too. */
     updatedRigs: { id: number; name: string }[]
+    /** What the figure reached, and what kept its own (as the preview says it). */
+    effect: PackHealthEffect
   }>(`${base(teamId, packId)}/${logId}/accept`, {
     method: 'POST',
     body: input,

@@ -4,6 +4,7 @@ import { packsApi } from '@/api/resources'
 import type { PackItem } from '@shared/schemas/resources'
 import type { DischargeLogDetail, DischargeLogSummary } from '@shared/discharge/log'
 import { modelConstantCurrentDischarge } from '@shared/engine/discharge-model'
+import { useHealthEffect } from './useHealthEffect'
 import { useTeamAccess } from './useTeamAccess'
 
 const messageOf = (caught: unknown, fallback: string) =>
@@ -11,7 +12,7 @@ const messageOf = (caught: unknown, fallback: string) =>
 
 /**
  * A saved pack, its discharge logs and the one on show, with upload (and its progress), delete
- * and accept. The model curve is the engine's pack with the log's measured health under the log's
+ * and accept, and what accepting the one on show changes (before and after). The model curve is the engine's pack with the log's measured health under the log's
  * average current, run here in the browser as the bench does.
  */
 export function useDischargeLogs(packId: Ref<number | undefined>) {
@@ -53,6 +54,8 @@ export function useDischargeLogs(packId: Ref<number | undefined>) {
       ? undefined
       : { team: teamId.value, pack: packId.value }
   }
+
+  const healthEffect = useHealthEffect(ids, selected)
 
   async function select(logId: number): Promise<void> {
     const at = ids()
@@ -132,7 +135,10 @@ export function useDischargeLogs(packId: Ref<number | undefined>) {
     pack.value = answer.pack
     const { points: _points, ...summary } = answer.log
     logs.value = logs.value.map((log) => (log.id === logId ? summary : log))
-    if (selected.value?.id === logId) selected.value = answer.log
+    if (selected.value?.id === logId) {
+      selected.value = answer.log
+      healthEffect.showApplied(answer.effect)
+    }
     return answer.updatedRigs.map((rig) => rig.name)
   }
 
@@ -145,6 +151,7 @@ export function useDischargeLogs(packId: Ref<number | undefined>) {
     selected,
     model,
     savedModel,
+    healthEffect,
     loading,
     error,
     uploadProgress,

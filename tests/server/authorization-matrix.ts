@@ -162,6 +162,12 @@ export const authorizationMatrix: MatrixRow[] = [
     path: '/api/v1/teams/:teamId/packs/:packId/discharge-logs/:logId',
     expect: team(403, 204, 204),
   },
+  // Viewers see what accepting would change; only editors accept.
+  {
+    method: 'GET',
+    path: '/api/v1/teams/:teamId/packs/:packId/discharge-logs/:logId/accept-preview',
+    expect: team(200, 200, 200),
+  },
   {
     method: 'POST',
     path: '/api/v1/teams/:teamId/packs/:packId/discharge-logs/:logId/accept',
