@@ -60,6 +60,9 @@ export default mergeConfig(
             environment: 'jsdom',
             pool: 'threads',
             setupFiles: ['tests/helpers/client-setup.ts'],
+            // The first test of a file pays for importing naive-ui's components (lazily loaded
+            // dialogs too): on a busy 2-core machine that alone passed vitest's default 5 s.
+            testTimeout: 20_000,
           },
         },
       ],
