@@ -3,29 +3,21 @@ import { nextTick } from 'vue'
 import { beforeEach, describe, expect, it, vi } from 'vitest'
 import { useLiveEstimate } from '@/composables/useEstimate'
 import { useRigDraftStore } from '@/stores/rigDraft'
+import { engineSpy } from './engine-spy'
 
 // The estimate is computed state of the rig draft store: the engine runs once per change of the
 // draft, and while the draft does not pass the schema the last valid rig's result stays, marked.
 
-// A spy on the engine module: counts runs, and fails on request (a bug in the engine).
-const engine = vi.hoisted(() => ({ runs: 0, fail: false }))
-vi.mock('../../shared/engine', async (importOriginal) => {
-  const original = await importOriginal<typeof import('../../shared/engine')>()
-  return {
-    ...original,
-    estimate: (...args: Parameters<typeof original.estimate>) => {
-      engine.runs++
-      if (engine.fail) throw new Error('cutoff search did not converge')
-      return original.estimate(...args)
-    },
-  }
-})
+// The engine module, spied on: its runs counted, and made to fail on request.
+vi.mock('../../shared/engine', async (original) =>
+  (await import('./engine-spy')).spiedEngine(original),
+)
 
 beforeEach(() => {
   localStorage.clear()
   setActivePinia(createPinia())
-  engine.runs = 0
-  engine.fail = false
+  engineSpy.runs = 0
+  engineSpy.fail = false
 })
 
 describe('the estimate of the rig draft store', () => {
@@ -86,29 +78,29 @@ describe('the estimate of the rig draft store', () => {
       ...readers.map((reader) => [reader.result.value, reader.stale.value]),
     ]
     readAll()
-    expect(engine.runs).toBe(1)
+    expect(engineSpy.runs).toBe(1)
     readAll()
-    expect(engine.runs).toBe(1)
+    expect(engineSpy.runs).toBe(1)
     // Two fields changed before anyone reads: one run for the new draft.
     store.draft.pack.count = 3
     store.draft.programme.peakBelowClipDb = 6
     await nextTick()
     readAll()
     readAll()
-    expect(engine.runs).toBe(2)
+    expect(engineSpy.runs).toBe(2)
     // A draft the schema refuses does not reach the engine.
     store.draft.pack.count = 0
     readAll()
-    expect(engine.runs).toBe(2)
+    expect(engineSpy.runs).toBe(2)
     // Unreadable text typed and taken back without a change: the kept answer is the draft's.
     store.draft.pack.count = 3
     readAll()
-    expect(engine.runs).toBe(3)
+    expect(engineSpy.runs).toBe(3)
     store.markUnreadable('pack.count', '“x” is not a number')
     readAll()
     store.markUnreadable('pack.count', null)
     readAll()
-    expect(engine.runs).toBe(3)
+    expect(engineSpy.runs).toBe(3)
     expect(store.stale).toBe(false)
   })
 
@@ -116,12 +108,12 @@ describe('the estimate of the rig draft store', () => {
     const store = useRigDraftStore()
     const valid = store.result
     expect(store.engineError).toBeNull()
-    engine.fail = true
+    engineSpy.fail = true
     store.draft.pack.count = 3
     expect(store.engineError).toBe('cutoff search did not converge')
     expect(store.result).toBe(valid)
     expect(store.stale).toBe(true)
-    engine.fail = false
+    engineSpy.fail = false
     store.draft.pack.count = 4
     expect(store.engineError).toBeNull()
     expect(store.stale).toBe(false)
