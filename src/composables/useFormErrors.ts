@@ -1,11 +1,7 @@
 import { reactive, ref } from 'vue'
 import type { z } from 'zod'
 import { ApiRequestError } from '@/api/http'
-
-interface Issue {
-  path: string
-  message: string
-}
+import { messagesByPath } from '@/display/messagesByPath'
 
 /**
  * Field messages for a naive-ui form, from the same zod schema the server uses and from the
@@ -21,11 +17,12 @@ export function useFormErrors<const Field extends string>(fields: readonly Field
     formError.value = undefined
   }
 
-  function show(issues: Issue[]): void {
-    for (const issue of issues) {
-      const field = fields.find((candidate) => candidate === issue.path.split('.')[0])
-      if (field) fieldErrors[field] ??= issue.message
-      else formError.value ??= issue.message
+  /** Each message beside the field its path starts with (`pack.count` → `pack`), first kept. */
+  function show(messages: ReadonlyMap<string, string>): void {
+    for (const [path, message] of messages) {
+      const field = fields.find((candidate) => candidate === path.split('.')[0])
+      if (field) fieldErrors[field] ??= message
+      else formError.value ??= message
     }
   }
 
@@ -34,20 +31,17 @@ export function useFormErrors<const Field extends string>(fields: readonly Field
     reset()
     const result = schema.safeParse(value)
     if (result.success) return result.data
-    show(
-      result.error.issues.map((issue) => ({
-        path: issue.path.map(String).join('.'),
-        message: issue.message,
-      })),
-    )
+    show(messagesByPath(result.error.issues))
     return undefined
   }
 
   /** Shows a failed request: its issues by field, or its message above the form. */
   function showRequestError(error: unknown): void {
-    if (error instanceof ApiRequestError && error.issues.length > 0) show(error.issues)
-    else
+    if (error instanceof ApiRequestError && error.issues.length > 0) {
+      show(messagesByPath(error.issues))
+    } else {
       formError.value = error instanceof Error ? error.message : 'Something went wrong; try again.'
+    }
   }
 
   return { fieldErrors, formError, reset, validate, showRequestError }

@@ -3,6 +3,8 @@ import { ApiRequestError } from '@/api/http'
 import { plansApi } from '@/api/plans'
 import { packsApi, rigsApi } from '@/api/resources'
 import { bodyOfDraft, draftFromPlan, emptyDraft, type PlanDraft } from '@/components/plan/planDraft'
+import { messagesByPath } from '@/display/messagesByPath'
+import { estimate } from '@shared/engine'
 import { planEstimateRequest } from '@shared/plans/request'
 import {
   estimateRequestSchema,
@@ -11,9 +13,16 @@ import {
 } from '@shared/schemas/estimate'
 import { planBodySchema, type PlanBody, type PlanItem } from '@shared/schemas/plans'
 import type { PackItem, RigItem } from '@shared/schemas/resources'
+import { useDraftAnswer } from './useDraftAnswer'
 import { useTeamAccess } from './useTeamAccess'
 
 const LIST_ALL = { limit: 200, sort: 'name' } as const
+
+/** A plan that passed the schema, with the estimate request of its day on the chosen rig. */
+export interface CheckedPlan {
+  body: PlanBody
+  request: EstimateRequest
+}
 
 function message(error: unknown, fallback: string): string {
   return error instanceof Error ? error.message : fallback
@@ -21,8 +30,9 @@ function message(error: unknown, fallback: string): string {
 
 /**
  * One plan being edited: loads it with the team's rigs and packs, checks the draft with the
- * shared schema on every change, builds the day's estimate request from the chosen rig, saves
- * (409 when someone saved first), and puts another pack into the rig.
+ * shared schema on every change, works the day out in the browser from the chosen rig (computed
+ * state: the engine runs once per change, and the last valid plan's day stays while the draft is
+ * not valid), saves (409 when someone saved first), and puts another pack into the rig.
  */
 export function usePlanEditor(
   planId: Ref<number | null>,
@@ -40,7 +50,18 @@ export function usePlanEditor(
   const saving = ref(false)
   const saveError = ref<string | null>(null)
   /** Issues the server named (a rig of another team): shown beside the fields like the schema's. */
-  const serverIssues = ref<Map<string, string>>(new Map())
+  const serverIssues = ref<ReadonlyMap<string, string>>(new Map())
+  /**
+   * Number fields whose typed text is not a number (field id → message): the draft keeps their
+   * last value, so the day shown is the last valid plan's, and saving waits (it would keep the
+   * old value without a word).
+   */
+  const unreadable = reactive(new Map<string, string>())
+
+  function markUnreadable(fieldId: string, message: string | null): void {
+    if (message === null) unreadable.delete(fieldId)
+    else unreadable.set(fieldId, message)
+  }
 
   function replaceDraft(next: PlanDraft): void {
     Object.assign(draft, next)
@@ -75,16 +96,12 @@ export function usePlanEditor(
   watch([teamId, planId], () => void load(), { immediate: true })
 
   const validation = computed(() => planBodySchema.safeParse(bodyOfDraft(draft)))
-  const fieldIssues = computed(() => {
-    const issues = new Map(serverIssues.value)
-    if (!validation.value.success) {
-      for (const issue of validation.value.error.issues) {
-        const path = issue.path.map(String).join('.')
-        if (!issues.has(path)) issues.set(path, issue.message)
-      }
-    }
-    return issues
-  })
+  const fieldIssues = computed(() =>
+    messagesByPath(
+      validation.value.success ? [] : validation.value.error.issues,
+      serverIssues.value,
+    ),
+  )
   watch(
     () => JSON.stringify(bodyOfDraft(draft)),
     () => (serverIssues.value = new Map()),
@@ -93,8 +110,8 @@ export function usePlanEditor(
   const rig = computed(() => rigs.value.find((candidate) => candidate.id === draft.rigId) ?? null)
   const dirty = computed(() => JSON.stringify(bodyOfDraft(draft)) !== savedBodyJson.value)
 
-  /** The day's estimate request, or null while the draft or its rig does not pass the schema. */
-  const request = computed<EstimateRequest | null>(() => {
+  /** The plan and its day's estimate request, or null while either does not pass the schema. */
+  const checked = computed<CheckedPlan | null>(() => {
     const body = validation.value.success ? validation.value.data : null
     if (!body || !rig.value) return null
     const parsed = estimateRequestSchema.safeParse(
@@ -105,8 +122,14 @@ export function usePlanEditor(
         schedule: body.schedule,
       }),
     )
-    return parsed.success ? parsed.data : null
+    return parsed.success ? { body, request: parsed.data } : null
   })
+  const day = useDraftAnswer(
+    () => (unreadable.size === 0 ? checked.value : null),
+    (plan) => estimate(plan.request),
+  )
+  /** The draft passes the schema and every number field reads: what saving needs. */
+  const complete = computed(() => validation.value.success && unreadable.size === 0)
 
   async function save(): Promise<PlanItem | null> {
     const team = teamId.value
@@ -124,7 +147,7 @@ export function usePlanEditor(
       return answer
     } catch (error) {
       if (error instanceof ApiRequestError && error.issues.length > 0) {
-        serverIssues.value = new Map(error.issues.map((issue) => [issue.path, issue.message]))
+        serverIssues.value = messagesByPath(error.issues)
       }
       saveError.value = message(error, 'The plan could not be saved.')
       return null
@@ -169,7 +192,17 @@ export function usePlanEditor(
     saveError,
     validation,
     fieldIssues,
-    request,
+    unreadable,
+    markUnreadable,
+    complete,
+    /** The day's result; while the draft is not valid, the last valid plan's (see `stale`). */
+    result: day.answer,
+    /** The checked plan and request the result belongs to. */
+    resultPlan: day.input,
+    /** True while the day shown is the last valid plan's. */
+    stale: day.stale,
+    /** Set when the engine failed on a request that passed the schema (a bug to report). */
+    engineError: day.error,
     dirty,
     load,
     save,

@@ -1,10 +1,11 @@
 import { computed, type Ref } from 'vue'
-import { estimate, suggestFixes } from '@shared/engine'
+import { suggestFixes } from '@shared/engine'
 import { libraryPacks } from '@shared/library'
 import { clockLabel } from '@shared/plans/clock'
 import { segmentEnergies } from '@shared/plans/segment-energy'
-import type { EstimateRequest, PackSpec } from '@shared/schemas/estimate'
+import type { EstimateResult, PackSpec } from '@shared/schemas/estimate'
 import type { PackItem } from '@shared/schemas/resources'
+import type { CheckedPlan } from './usePlanEditor'
 
 /** A pack the plan can be compared on or switched to: built-in, or one of the team's own. */
 export interface CandidatePack {
@@ -48,21 +49,22 @@ export function candidatePacks(teamPacks: readonly PackItem[]): CandidatePack[] 
 }
 
 /**
- * The day computed in the browser by the same engine the server runs at save: the result, swaps
- * on the event clock, energy per segment, and fixes when the day does not last.
+ * What the page shows of the day the plan editor worked out (the same engine the server runs at
+ * save): swaps on the event clock, energy per segment, and fixes when the day does not last.
+ * `plan` is the one the result belongs to, so all of it is the same plan's, valid or last valid.
  */
 export function usePlanResult(
-  request: Ref<EstimateRequest | null>,
-  startTime: Ref<string>,
-  candidates: Ref<readonly CandidatePack[]>,
+  result: Readonly<Ref<EstimateResult | null>>,
+  plan: Readonly<Ref<CheckedPlan | null>>,
+  candidates: Readonly<Ref<readonly CandidatePack[]>>,
 ) {
-  const result = computed(() => (request.value ? estimate(request.value) : null))
-  const swaps = computed(() =>
-    (result.value?.schedule?.swaps ?? []).map((swap) => ({
-      ...swap,
-      atTime: clockLabel(startTime.value, swap.atMinute),
-    })),
-  )
+  const request = computed(() => plan.value?.request ?? null)
+  const swaps = computed(() => {
+    const startTime = plan.value?.body.startTime
+    const planned = result.value?.schedule?.swaps ?? []
+    if (startTime === undefined) return []
+    return planned.map((swap) => ({ ...swap, atTime: clockLabel(startTime, swap.atMinute) }))
+  })
   const segments = computed(() => (request.value ? segmentEnergies(request.value) : []))
   const fixes = computed(() => {
     if (!request.value || !result.value?.schedule || result.value.schedule.lasts) return null
@@ -71,5 +73,5 @@ export function usePlanResult(
       candidates.value.map((candidate) => candidate.spec),
     )
   })
-  return { result, swaps, segments, fixes }
+  return { swaps, segments, fixes }
 }

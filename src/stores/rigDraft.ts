@@ -1,5 +1,8 @@
 import { defineStore } from 'pinia'
 import { computed, reactive, ref, watch } from 'vue'
+import { useDraftAnswer } from '@/composables/useDraftAnswer'
+import { messagesByPath } from '@/display/messagesByPath'
+import { estimate } from '@shared/engine'
 import { exampleRigs } from '@shared/library'
 import {
   estimateRequestSchema,
@@ -91,10 +94,15 @@ function persist(stored: StoredDraft): void {
   }
 }
 
+// The same empty map every time: nothing that shows messages re-renders for a valid change.
+const noMessages: ReadonlyMap<string, string> = new Map()
+
 /**
  * The rig on the bench: edited by the forms, checked against the shared schema on every change,
- * and kept in this browser. Only a rig that passes the schema is written to storage, so a visit
- * never restores a half-typed rig and never loses the last complete one.
+ * estimated in the browser (no round trip), and kept in this browser. Only a rig that passes the
+ * schema is written to storage, so a visit never restores a half-typed rig and never loses the
+ * last complete one. The estimate is computed state: the engine runs once per change of the
+ * draft, however many panels read it.
  */
 export const useRigDraftStore = defineStore('rigDraft', () => {
   const restored = restore()
@@ -120,6 +128,19 @@ export const useRigDraftStore = defineStore('rigDraft', () => {
     if (result.success) persist({ name: name.value, rig: result.data })
   })
 
+  const estimated = useDraftAnswer(() => {
+    const checked = validation.value
+    return checked.success && unreadable.size === 0 ? checked.data : null
+  }, estimate)
+  /** Field path (`pack.seriesCells`, `accessories.0.powerW`) → the message shown at it. */
+  const fieldIssues = computed<ReadonlyMap<string, string>>(() => {
+    const checked = validation.value
+    if (checked.success && unreadable.size === 0) return noMessages
+    // Text that is not a number comes first: it is what the field shows.
+    return messagesByPath(checked.success ? [] : checked.error.issues, unreadable)
+  })
+  const issueMessages = computed<readonly string[]>(() => [...fieldIssues.value.values()])
+
   /** Replaces the whole rig (an example, an import); the caller has already validated it. */
   function replace(request: EstimateRequest, nextName: string): void {
     name.value = nextName
@@ -132,5 +153,24 @@ export const useRigDraftStore = defineStore('rigDraft', () => {
     unreadable.clear()
   }
 
-  return { draft, name, notice, validation, unreadable, markUnreadable, replace }
+  return {
+    draft,
+    name,
+    notice,
+    validation,
+    unreadable,
+    markUnreadable,
+    replace,
+    /** The latest estimate; while the draft is invalid, the last valid rig's (see `stale`). */
+    result: estimated.answer,
+    /** The validated request the result belongs to. */
+    request: estimated.input,
+    /** True while the result shown belongs to an earlier, valid version of the draft. */
+    stale: estimated.stale,
+    fieldIssues,
+    /** Every field message, for a summary above the results. */
+    issueMessages,
+    /** Set when the engine itself failed on input that passed the schema (a bug to report). */
+    engineError: estimated.error,
+  }
 })

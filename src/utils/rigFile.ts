@@ -1,3 +1,4 @@
+import { dottedPath } from '@/display/messagesByPath'
 import { estimateRequestSchema, type EstimateRequest } from '@shared/schemas/estimate'
 
 // Loudhour's own rig file: a small envelope that names itself, so a foreign JSON file is told
@@ -69,7 +70,7 @@ export function readRigFile(text: string): RigFileReading {
   const parsed = estimateRequestSchema.safeParse(envelope.rig)
   if (!parsed.success) {
     const issue = parsed.error.issues[0]
-    const where = issue && issue.path.length > 0 ? ` (at ${issue.path.map(String).join('.')})` : ''
+    const where = issue && issue.path.length > 0 ? ` (at ${dottedPath(issue.path)})` : ''
     return failure(
       `The rig in this file is not valid${where}: ${issue?.message ?? 'unknown problem'}. Nothing was changed.`,
     )

@@ -3,39 +3,32 @@ import { useRigDraftStore } from '@/stores/rigDraft'
 import { flushPromises } from '@vue/test-utils'
 import { benchTestTimeoutMs, mountBench, typeInto } from './bench-helpers'
 import { minutesOfRuntimeText } from '../helpers/runtime-text'
+import { engineSpy } from './engine-spy'
 
 // Counts engine runs while the whole bench (a dozen panels reading the result) is on screen.
-const engine = vi.hoisted(() => ({ runs: 0 }))
-vi.mock('../../shared/engine', async (importOriginal) => {
-  const original = await importOriginal<typeof import('../../shared/engine')>()
-  return {
-    ...original,
-    estimate: (...args: Parameters<typeof original.estimate>) => {
-      engine.runs++
-      return original.estimate(...args)
-    },
-  }
-})
+vi.mock('../../shared/engine', async (original) =>
+  (await import('./engine-spy')).spiedEngine(original),
+)
 
 beforeEach(() => localStorage.clear())
 
 describe('the live estimate', { timeout: benchTestTimeoutMs }, () => {
   it('runs the engine once per change, however many panels show the result', async () => {
     const wrapper = await mountBench()
-    expect(engine.runs).toBe(1)
+    expect(engineSpy.runs).toBe(1)
     await typeInto(wrapper, 'programme.peakBelowClipDb', '4')
-    expect(engine.runs).toBe(2)
+    expect(engineSpy.runs).toBe(2)
     await typeInto(wrapper, 'pack.count', '3')
-    expect(engine.runs).toBe(3)
+    expect(engineSpy.runs).toBe(3)
     wrapper.unmount()
   })
 
   it('does not run the engine on a draft the schema refuses', async () => {
     const wrapper = await mountBench()
-    const runsBefore = engine.runs
+    const runsBefore = engineSpy.runs
     useRigDraftStore().draft.pack.parallelCells = 0
     await flushPromises()
-    expect(engine.runs).toBe(runsBefore)
+    expect(engineSpy.runs).toBe(runsBefore)
     wrapper.unmount()
   })
 

@@ -92,6 +92,17 @@ describe('states that are true', () => {
     expect(await page.getByTestId('plan-save').isDisabled()).toBe(true)
     await packs.fill('1')
     await page.getByTestId('plan-stale').waitFor({ state: 'detached' })
+    // A plan the schema refuses (no start time): the last valid plan's day stays, marked.
+    const start = page.locator('input[type="time"]')
+    const startTime = await start.inputValue()
+    await start.fill('')
+    await page.getByTestId('plan-stale').waitFor()
+    expect(await page.getByTestId('plan-stale').innerText()).toContain('fields marked in red')
+    expect(await page.getByTestId('plan-verdict').innerText()).toContain('1 pack on hand is used')
+    expect(await page.getByTestId('plan-save').isDisabled()).toBe(true)
+    await app.browser.screenshot('plan-last-valid')
+    await start.fill(startTime)
+    await page.getByTestId('plan-stale').waitFor({ state: 'detached' })
   })
 
   it('shows masses in pounds once imperial is chosen', async () => {
