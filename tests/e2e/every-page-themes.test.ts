@@ -88,7 +88,13 @@ describe('every main page passes axe, light and dark, at a desk and on a phone',
       for (const main of await mainPages()) {
         await page.goto(`${app.server.url}${main.path}`)
         await main.ready(page).waitFor()
-        const violations = await axeAtDeskAndPhone(app.browser, `${main.name}-${mode}`)
+        const violations = await axeAtDeskAndPhone(app.browser, `${main.name}-${mode}`, {
+          onPhone: async () => {
+            // Nothing wider than the phone: a wide table or chart scrolls in its own box.
+            const widthPx = await page.evaluate(() => document.documentElement.scrollWidth)
+            if (widthPx > phoneViewport.width) found[`${main.name} width on a phone`] = widthPx
+          },
+        })
         if (violations.desktop.length + violations.phone.length > 0) found[main.name] = violations
       }
       expect(found).toEqual({})
@@ -106,9 +112,5 @@ describe('every main page passes axe, light and dark, at a desk and on a phone',
       .locator('.card-sheet')
       .evaluate((sheet) => sheet.scrollWidth - sheet.clientWidth)
     expect(overflowPx).toBeLessThanOrEqual(0)
-    // Nor is the page itself wider than the phone.
-    expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(
-      phoneViewport.width,
-    )
   })
 })

@@ -24,11 +24,11 @@ async function openSaturdayMarket(page: Page): Promise<void> {
   await page.getByTestId('plan-lasts').waitFor()
 }
 
-/** A screenshot at a desk and one on a phone of the page as it is; left at desk size. */
+/** The whole page at a desk, and a phone's first view of it; left at desk size. */
 async function shootBoth(session: BrowserSession, name: string): Promise<void> {
   await session.screenshot(`${name}-desktop`)
   await session.page.setViewportSize(phoneViewport)
-  await session.screenshot(`${name}-phone`)
+  await session.page.screenshot({ path: join(screenshotDir, `${name}-phone.png`) })
   await session.page.setViewportSize(desktopViewport)
 }
 

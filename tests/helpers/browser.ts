@@ -152,6 +152,8 @@ export async function chooseColourMode(page: Page, mode: 'light' | 'dark'): Prom
 export async function axeAtDeskAndPhone(
   session: BrowserSession,
   name: string,
+  /** More checks of the page at phone size, on the same load. */
+  { onPhone }: { onPhone?: () => Promise<void> } = {},
 ): Promise<{ desktop: AxeViolation[]; phone: AxeViolation[] }> {
   const { page } = session
   await page.setViewportSize(desktopViewport)
@@ -160,6 +162,7 @@ export async function axeAtDeskAndPhone(
   await page.setViewportSize(phoneViewport)
   await page.evaluate(() => window.scrollTo(0, 0))
   const phone = await seriousAxeViolations(page)
+  await onPhone?.()
   await session.screenshot(`${name}-phone`)
   await page.setViewportSize(desktopViewport)
   return { desktop, phone }
