@@ -1,9 +1,11 @@
+import { join } from 'node:path'
 import type { Page } from 'playwright-core'
 import { describe, expect, it } from 'vitest'
 import {
   desktopViewport,
   openBrowser,
   phoneViewport,
+  screenshotDir,
   type BrowserSession,
 } from '../helpers/browser'
 import { signInBeforeAll, submitSignIn, useAppUnderTest } from '../helpers/e2e-app'
