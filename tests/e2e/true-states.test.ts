@@ -70,6 +70,7 @@ describe('states that are true', () => {
       const fields = page.getByTestId('bench-fields')
       expect(await fields.evaluate((set) => (set as HTMLFieldSetElement).disabled)).toBe(true)
       expect(await page.getByLabel('Cells in series').isDisabled()).toBe(true)
+      expect(await page.getByLabel('Rig name').isDisabled()).toBe(true)
       // naive-ui's switches are no form controls: they say so by their class alone.
       expect(await page.locator('[data-testid="bench-fields"] .n-switch').count()).toBe(
         await page.locator('[data-testid="bench-fields"] .n-switch--disabled').count(),
