@@ -20,16 +20,18 @@ export const signIn = (input: SignInInput) =>
     method: 'POST',
     body: input,
     quietUnauthorized: true,
+    writesNothing: true,
   })
 
 /** The same answer whether or not the address had an account; the mail says which. */
 export const signUp = (input: SignUpInput) =>
   apiRequest<SignUpAccepted>('/v1/auth/sign-up', { method: 'POST', body: input })
 
-export const signOut = () => apiRequest<void>('/v1/auth/sign-out', { method: 'POST' })
+export const signOut = () =>
+  apiRequest<void>('/v1/auth/sign-out', { method: 'POST', writesNothing: true })
 
 export const signOutEverywhere = () =>
-  apiRequest<void>('/v1/auth/sign-out-everywhere', { method: 'POST' })
+  apiRequest<void>('/v1/auth/sign-out-everywhere', { method: 'POST', writesNothing: true })
 
 export const updateProfile = (input: ProfileUpdateInput) =>
   apiRequest<MeResponse>('/v1/auth/me', { method: 'PATCH', body: input })

@@ -6,7 +6,7 @@ import {
   type DischargeLogDetail,
   type DischargeLogSummary,
 } from '@shared/discharge/log'
-import { ApiRequestError, apiRequest, reportUnauthorized } from './http'
+import { ApiRequestError, apiRequest, reportUnauthorized, unreachableError } from './http'
 
 // A saved pack's measured discharges (docs/api.md, "The team's parts, rigs and plans").
 
@@ -82,15 +82,7 @@ export function uploadDischargeLog(
       if (xhr.status === 401) reportUnauthorized()
       reject(requestError(xhr.status, xhr.response))
     })
-    xhr.addEventListener('error', () =>
-      reject(
-        new ApiRequestError(
-          0,
-          'offline',
-          'The server could not be reached. Check the connection and try again.',
-        ),
-      ),
-    )
+    xhr.addEventListener('error', () => reject(unreachableError('saved')))
     xhr.send(form)
   })
 }

@@ -8,7 +8,11 @@ export const eventsApi = resourceApi<EventItem, EventBody>('events')
 
 /** The answer for an unsaved event, while the crew edits; nothing is written. */
 export const previewEvent = (teamId: number, body: EventPreviewBody) =>
-  apiRequest<EventAnswer>(`/v1/teams/${teamId}/events/preview`, { method: 'POST', body })
+  apiRequest<EventAnswer>(`/v1/teams/${teamId}/events/preview`, {
+    method: 'POST',
+    body,
+    writesNothing: true,
+  })
 
 /** Signed out or in alike; a dead link answers 404. */
 export const getSharedEventCard = (token: string) =>

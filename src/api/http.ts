@@ -33,6 +33,19 @@ export function reportUnauthorized(): void {
   for (const listener of unauthorizedListeners) listener()
 }
 
+/**
+ * The request never reached the server (offline, or the server is down). A change says that
+ * nothing was saved, so no one walks away believing the team has it.
+ */
+export function unreachableError(outcome: 'read' | 'saved' | 'deleted'): ApiRequestError {
+  const said = outcome === 'read' ? '' : `, so nothing was ${outcome}`
+  return new ApiRequestError(
+    0,
+    'offline',
+    `The server could not be reached${said}. Check the connection and try again.`,
+  )
+}
+
 export interface ApiRequestOptions {
   method?: 'GET' | 'POST' | 'PUT' | 'PATCH' | 'DELETE'
   body?: unknown
@@ -40,6 +53,14 @@ export interface ApiRequestOptions {
   signal?: AbortSignal
   /** Skip the global 401 handling (the sign-in form handles its own 401). */
   quietUnauthorized?: boolean
+  /** A POST that writes nothing (a preview, signing in): unreachable, it is not called a save. */
+  writesNothing?: boolean
+}
+
+function outcomeOf(options: ApiRequestOptions): 'read' | 'saved' | 'deleted' {
+  const method = options.method ?? 'GET'
+  if (method === 'GET' || options.writesNothing) return 'read'
+  return method === 'DELETE' ? 'deleted' : 'saved'
 }
 
 export async function apiRequest<T>(path: string, options: ApiRequestOptions = {}): Promise<T> {
@@ -64,11 +85,7 @@ export async function apiRequest<T>(path: string, options: ApiRequestOptions = {
     })
   } catch (error) {
     if ((error as Error).name === 'AbortError') throw error
-    throw new ApiRequestError(
-      0,
-      'offline',
-      'The server could not be reached. Check the connection and try again.',
-    )
+    throw unreachableError(outcomeOf(options))
   }
   if (response.status === 204) return undefined as T
   const payload: unknown = await response.json().catch(() => undefined)

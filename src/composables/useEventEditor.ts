@@ -39,6 +39,8 @@ export function useEventEditor(teamId: Ref<number | undefined>, eventId: Ref<num
       packKinds: [...charger.packKinds],
     }))
     answer.value = item.answer
+    countNewKinds(item.answer)
+    savedBodyJson.value = JSON.stringify(body.value)
   }
 
   async function load(): Promise<void> {
@@ -69,9 +71,14 @@ export function useEventEditor(teamId: Ref<number | undefined>, eventId: Ref<num
 
   // Kinds the answer names get a count the first time they appear: one pack, so the answer
   // starts from something and says how many more to bring.
-  watch(answer, (next) => {
+  function countNewKinds(next: EventAnswer | undefined): void {
     for (const kind of next?.kinds ?? []) if (!(kind.key in form.pool)) form.pool[kind.key] = 1
-  })
+  }
+  watch(answer, countNewKinds)
+
+  // What was last saved (or the blank form of a new event): anything else is unsaved work.
+  const savedBodyJson = ref(JSON.stringify(body.value))
+  const dirty = computed(() => JSON.stringify(body.value) !== savedBodyJson.value)
 
   let previewTimer: ReturnType<typeof setTimeout> | undefined
   let previewSequence = 0
@@ -104,5 +111,17 @@ export function useEventEditor(teamId: Ref<number | undefined>, eventId: Ref<num
     }
   }
 
-  return { form, saved, plans, answer, loading, error, previewError, body, fill, refresh }
+  return {
+    form,
+    saved,
+    plans,
+    answer,
+    loading,
+    error,
+    previewError,
+    body,
+    dirty,
+    fill,
+    refresh,
+  }
 }

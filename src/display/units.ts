@@ -79,10 +79,19 @@ export const mass: DisplayQuantity = {
 }
 
 /** Energy per mass in the same units: Wh/lb in imperial, Wh/kg in metric. */
+export const energyPerMass: DisplayQuantity = {
+  get unit() {
+    return imperialNow() ? 'Wh/lb' : 'Wh/kg'
+  },
+  // Wh per lb = Wh per kg × the kilograms in one pound.
+  toDisplay: (whPerKg) => (imperialNow() ? whPerKg * poundsToKilograms(1) : whPerKg),
+  fromDisplay: (shown) => (imperialNow() ? shown / poundsToKilograms(1) : shown),
+  decimals: 0,
+}
+
+/** Energy per mass with its unit, as the switch asks. */
 export function energyPerMassText(whPerKg: number): string {
-  return imperialNow()
-    ? withUnit(formatNumber(whPerKg * poundsToKilograms(1), 0), 'Wh/lb') // kg in one lb
-    : withUnit(formatNumber(whPerKg, 0), 'Wh/kg')
+  return showQuantity(whPerKg, energyPerMass)
 }
 
 /** The AWG name of a gauge: 0 is "1/0", −1 is "2/0" (ASTM B258 numbering). */
@@ -121,9 +130,14 @@ export function useDisplayUnits(): DisplayUnits {
   }
 }
 
+/** An SI value shown in a display quantity, rounded, without its unit (a column names it). */
+export function quantityNumber(si: number, quantity: DisplayQuantity): string {
+  return formatNumber(quantity.toDisplay(si), quantity.decimals)
+}
+
 /** An SI value shown in a display quantity, rounded, with its unit. */
 export function showQuantity(si: number, quantity: DisplayQuantity): string {
-  return withUnit(formatNumber(quantity.toDisplay(si), quantity.decimals), quantity.unit)
+  return withUnit(quantityNumber(si, quantity), quantity.unit)
 }
 
 /**

@@ -123,7 +123,7 @@ export const routes: RouteRecordRaw[] = [
     path: '/plans',
     name: 'plans',
     component: () => import('@/views/PlansView.vue'),
-    meta: { title: 'Event plans' },
+    meta: { title: 'Event plans', access: 'member' },
   },
   {
     path: '/plans/new',
@@ -147,7 +147,7 @@ export const routes: RouteRecordRaw[] = [
     path: '/events',
     name: 'events',
     component: () => import('@/views/EventsView.vue'),
-    meta: { title: 'Events' },
+    meta: { title: 'Events', access: 'member' },
   },
   {
     path: '/events/new',

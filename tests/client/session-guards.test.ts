@@ -43,6 +43,36 @@ describe('route guards and the session', { timeout: 30_000 }, () => {
     expect(router.currentRoute.value.query.redirect).toBe('/team')
   })
 
+  it('sends a guest from every team page to sign-in alike', async () => {
+    // The team's pages (its plans, events, rigs, parts, packs, cards and members) hold nothing
+    // for a guest; each behaves as the others do. The bench and the shared cards stay open.
+    const teamPages = [
+      '/plans',
+      '/plans/new',
+      '/plans/3',
+      '/plans/3/card',
+      '/events',
+      '/events/new',
+      '/events/4',
+      '/events/4/card',
+      '/rigs',
+      '/rigs/5/card',
+      '/parts',
+      '/parts/packs/6',
+      '/team',
+      '/account',
+    ]
+    for (const path of teamPages) {
+      const router = await routerWith(null, path)
+      expect(router.currentRoute.value.name, path).toBe('sign-in')
+      expect(router.currentRoute.value.query.redirect, path).toBe(path)
+    }
+    for (const path of ['/', '/about', '/shared/abc', '/shared/events/abc']) {
+      const router = await routerWith(null, path)
+      expect(router.currentRoute.value.path, path).toBe(path)
+    }
+  })
+
   it('lets a signed-in user in, and sends them on from sign-in', async () => {
     const router = await routerWith(me, '/team')
     expect(router.currentRoute.value.name).toBe('team')

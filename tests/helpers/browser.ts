@@ -73,6 +73,8 @@ export interface AxeViolation {
   impact: string | null
   help: string
   nodes: number
+  /** Where: the CSS selectors of the first few elements found, to name the culprit in a failure. */
+  targets: string[]
 }
 
 const axeSource = readFileSync(
@@ -102,7 +104,12 @@ export async function seriousAxeViolations(page: Page): Promise<AxeViolation[]> 
       window as unknown as {
         axe: {
           run: (context: Document) => Promise<{
-            violations: { id: string; impact: string | null; help: string; nodes: unknown[] }[]
+            violations: {
+              id: string
+              impact: string | null
+              help: string
+              nodes: { target: unknown[] }[]
+            }[]
           }>
         }
       }
@@ -113,9 +120,50 @@ export async function seriousAxeViolations(page: Page): Promise<AxeViolation[]> 
       impact: violation.impact,
       help: violation.help,
       nodes: violation.nodes.length,
+      targets: violation.nodes.slice(0, 3).map((node) => node.target.map(String).join(' ')),
     }))
   })
   return violations.filter(
     (violation) => violation.impact === 'serious' || violation.impact === 'critical',
   )
+}
+
+/** The two screens every page is checked on: a desk and a phone. */
+export const desktopViewport = { width: 1280, height: 800 }
+export const phoneViewport = { width: 390, height: 844 }
+
+/**
+ * The app's colour mode for every page loaded from now on, as the header's switch stores it in
+ * the browser (stores/preferences.ts); the page must be on the app's origin.
+ */
+export async function chooseColourMode(page: Page, mode: 'light' | 'dark'): Promise<void> {
+  await page.evaluate((colourMode) => {
+    const key = 'loudhour.preferences.v1'
+    const stored = JSON.parse(localStorage.getItem(key) ?? '{}') as Record<string, unknown>
+    localStorage.setItem(key, JSON.stringify({ units: 'metric', ...stored, colourMode }))
+  }, mode)
+}
+
+/**
+ * Axe's serious and critical violations on the page as it is, at a desk and then on a phone
+ * (the same load, resized), with a screenshot of each (`<name>-desktop`, `<name>-phone`). The
+ * page is left at desk size. One load per page keeps a run over every page short.
+ */
+export async function axeAtDeskAndPhone(
+  session: BrowserSession,
+  name: string,
+  /** More checks of the page at phone size, on the same load. */
+  { onPhone }: { onPhone?: () => Promise<void> } = {},
+): Promise<{ desktop: AxeViolation[]; phone: AxeViolation[] }> {
+  const { page } = session
+  await page.setViewportSize(desktopViewport)
+  const desktop = await seriousAxeViolations(page)
+  await session.screenshot(`${name}-desktop`)
+  await page.setViewportSize(phoneViewport)
+  await page.evaluate(() => window.scrollTo(0, 0))
+  const phone = await seriousAxeViolations(page)
+  await onPhone?.()
+  await session.screenshot(`${name}-phone`)
+  await page.setViewportSize(desktopViewport)
+  return { desktop, phone }
 }

@@ -1,5 +1,12 @@
 import type { z } from 'zod'
-import { mass, milliOhm, percentOfOne, showQuantity, type DisplayQuantity } from '@/display/units'
+import {
+  mass,
+  milliOhm,
+  percentOfOne,
+  quantityNumber,
+  showQuantity,
+  type DisplayQuantity,
+} from '@/display/units'
 import {
   accessoriesApi,
   amplifiersApi,
@@ -208,12 +215,20 @@ export function fieldOf(kind: PartKind, key: string): PartField | undefined {
   return kind.fields.find((field) => field.key === key)
 }
 
-/** A part's value as a table shows it: the figure and its unit. */
-export function shownValue(field: PartField | undefined, value: unknown): string {
+/**
+ * A part's value as a table shows it: the figure in the unit the switch asks for, and the unit
+ * unless the column's title carries it (`unitInTitle`).
+ */
+export function shownValue(
+  field: PartField | undefined,
+  value: unknown,
+  { unitInTitle = false } = {},
+): string {
   if (value === undefined || value === null) return '—'
   if (typeof value === 'boolean') return value ? 'yes' : 'no'
-  if (typeof value === 'number' && field?.quantity) return showQuantity(value, field.quantity)
-  if (typeof value === 'number' && field?.unit) return `${value}\u00a0${field.unit}`
+  if (typeof value === 'number' && field?.quantity)
+    return unitInTitle ? quantityNumber(value, field.quantity) : showQuantity(value, field.quantity)
+  if (typeof value === 'number' && field?.unit && !unitInTitle) return `${value}\u00a0${field.unit}`
   return String(value)
 }
 
