@@ -1,5 +1,5 @@
 // One accessory's number fields (a mixer, a receiver, a light) and its converter's.
-import { voltageField } from './limits'
+import { efficiencyField, voltageField } from './limits'
 import type { NumberFieldEntry } from './types'
 
 export const accessoryFields = {
@@ -14,14 +14,7 @@ export const accessoryFields = {
   'accessory.inputMinV': voltageField('Accessory minimum input voltage'),
   'accessory.inputMaxV': voltageField('Accessory maximum input voltage'),
   'accessory.outputV': voltageField('Converter output voltage'),
-  // Output can never exceed input (conservation of energy), so an efficiency is at most 1.
-  'accessory.efficiency': {
-    label: 'Converter efficiency',
-    min: 0,
-    max: 1,
-    aboveMin: true,
-    display: 'percentOfOne',
-  },
+  'accessory.efficiency': efficiencyField('Converter efficiency'),
   'accessory.idleW': { label: 'Converter idle draw', unit: 'W', min: 0, max: 50, step: 0.05 },
   // Extension: the converter module's own input range, checked against the pack's window.
   'accessory.converterInputMinV': voltageField('Converter minimum input voltage'),

@@ -1,5 +1,5 @@
 // The amplifier's number fields.
-import { voltageField } from './limits'
+import { efficiencyField, voltageField } from './limits'
 import type { NumberFieldEntry } from './types'
 
 export const amplifierFields = {
@@ -26,14 +26,7 @@ export const amplifierFields = {
   'amplifier.supplyMaxV': voltageField('Maximum supply voltage'),
   'amplifier.lockoutV': { ...voltageField('Lock-out (undervoltage mute) voltage'), step: 0.5 },
   'amplifier.idleCurrentA': { label: 'Idle current', unit: 'A', min: 0, max: 50, step: 0.01 },
-  // Output can never exceed input (conservation of energy), so an efficiency is at most 1.
-  'amplifier.efficiency': {
-    label: 'Amplifier efficiency',
-    min: 0,
-    max: 1,
-    aboveMin: true,
-    display: 'percentOfOne',
-  },
+  'amplifier.efficiency': efficiencyField('Amplifier efficiency'),
   'amplifier.minLoadOhm': { label: 'Minimum load', unit: 'Ω', min: 0, max: 100, aboveMin: true },
   // Extension: the board's supply capacitors, which smooth a little of a bass note's ripple.
   'amplifier.bulkCapacitanceUF': {

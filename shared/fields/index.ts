@@ -28,6 +28,28 @@ export const FIELDS = {
 /** A field's key in the catalogue: `pack.cellCapacityAh`, `temperatureC`. */
 export type FieldKey = keyof typeof FIELDS
 
+/** The first part of a dotted key: `pack`, `amplifier`, `segment`. */
+export type FieldGroup = FieldKey extends infer Key
+  ? Key extends `${infer Group}.${string}`
+    ? Group
+    : never
+  : never
+
+/** The fields of one group by their property names: `FieldProperty<'pack'>` holds `seriesCells`. */
+export type FieldProperty<Group extends FieldGroup> = FieldKey extends infer Key
+  ? Key extends `${Group}.${infer Property}`
+    ? Property
+    : never
+  : never
+
+/** The catalogue key of one group's property. */
+export function groupFieldKey<Group extends FieldGroup>(
+  group: Group,
+  property: FieldProperty<Group>,
+): FieldKey {
+  return `${group}.${property}` as FieldKey
+}
+
 export function fieldEntry(key: FieldKey): NumberFieldEntry {
   return FIELDS[key]
 }

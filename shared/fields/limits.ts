@@ -10,3 +10,18 @@ export const MAX_SCHEDULE_MINUTES = 10080
 export function voltageField(label: string) {
   return { label, unit: 'V', min: 0, max: MAX_SUPPLY_V, aboveMin: true } as const
 }
+
+/**
+ * An efficiency, as the fraction the engine takes and in % on screen. Output can never exceed
+ * input (conservation of energy), so it is at most 1; zero would be no output at all.
+ */
+export function efficiencyField(label: string) {
+  return {
+    label,
+    min: 0,
+    max: 1,
+    aboveMin: true,
+    display: 'percentOfOne',
+    boundsNote: '1 is 100 %',
+  } as const
+}
