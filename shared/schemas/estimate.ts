@@ -3,38 +3,9 @@
 // so screens can show what was assumed.
 import { z } from 'zod'
 import { CHEMISTRIES, CHEMISTRY_DATA } from '../engine/chemistry'
+import { MAX_SCHEDULE_MINUTES } from '../fields'
+import { numberField } from './number-field'
 import { singleLineMessage, singleLinePattern } from './single-line'
-
-interface Bounds {
-  min: number
-  max: number
-  /** The minimum itself is not allowed (a zero capacity, impedance or efficiency is not physical). */
-  aboveMin?: boolean
-  whole?: boolean
-  unit?: string
-}
-
-/** A finite number within bounds, with one plain message naming the field for every failure. */
-export function quantity(label: string, bounds: Bounds) {
-  const unit = bounds.unit ? ` ${bounds.unit}` : ''
-  const message = bounds.whole
-    ? `${label} must be a whole number from ${bounds.min} to ${bounds.max}${unit}`
-    : bounds.aboveMin
-      ? `${label} must be more than ${bounds.min} and at most ${bounds.max}${unit}`
-      : `${label} must be a number from ${bounds.min} to ${bounds.max}${unit}`
-  // zod 4 numbers already refuse NaN and ±Infinity.
-  const number = z.number({ error: message })
-  const whole = bounds.whole ? number.int({ error: message }) : number
-  const low = bounds.aboveMin
-    ? whole.gt(bounds.min, { error: message })
-    : whole.min(bounds.min, { error: message })
-  return low.max(bounds.max, { error: message })
-}
-
-/** A supply or input voltage: positive, up to the absurd-magnitude guard. */
-function voltage(label: string) {
-  return quantity(label, { min: 0, max: MAX_SUPPLY_V, aboveMin: true, unit: 'V' })
-}
 
 export function text(label: string, maxLength: number) {
   const message = `${label} must be text of 1 to ${maxLength} characters`
@@ -53,11 +24,6 @@ function choice<const T extends readonly [string, ...string[]]>(label: string, v
 function flag(label: string) {
   return z.boolean({ error: `${label} must be true or false` })
 }
-
-// Upper bounds are "absurd magnitude" guards for portable sound, far above any real rig, so a
-// typo (an extra zero or two) is caught while every real pack, amplifier and lead passes.
-const MAX_SUPPLY_V = 1000 // above any battery rig; 100 cells of li-ion are 420 V
-const MAX_SCHEDULE_MINUTES = 10080 // 7 days: an event plan, not a season
 
 export const CHEMISTRY_VALUES = CHEMISTRIES
 export const AMPLIFIER_CLASSES = ['d', 'ab', 'a'] as const
@@ -98,39 +64,18 @@ export const packSchema = z
   .object(
     {
       chemistry: choice('Chemistry', CHEMISTRIES),
-      seriesCells: quantity('Cells in series', { min: 1, max: 100, whole: true }),
-      parallelCells: quantity('Cells in parallel', { min: 1, max: 100, whole: true }),
-      cellCapacityAh: quantity('Cell capacity', { min: 0, max: 1000, aboveMin: true, unit: 'Ah' }),
-      cellResistanceOhm: quantity('Cell resistance', {
-        min: 0,
-        max: 10,
-        aboveMin: true,
-        unit: 'ohm',
-      }).optional(),
-      cutoffCellV: quantity('Cutoff voltage per cell', {
-        min: 0,
-        max: 5,
-        aboveMin: true,
-        unit: 'V',
-      }).optional(),
-      // A measured capacity can beat the label a little, hence above 100 %.
-      healthPct: quantity('Pack health', {
-        min: 0,
-        max: 120,
-        aboveMin: true,
-        unit: '%',
-      }).optional(),
-      maxDischargeA: quantity('Maximum continuous discharge', {
-        min: 0,
-        max: 5000,
-        aboveMin: true,
-        unit: 'A',
-      }).optional(),
-      peukertExponent: quantity('Peukert exponent', { min: 1, max: 1.6 }).optional(),
-      count: quantity('Number of packs on hand', { min: 1, max: 50, whole: true }).optional(),
+      seriesCells: numberField('pack.seriesCells'),
+      parallelCells: numberField('pack.parallelCells'),
+      cellCapacityAh: numberField('pack.cellCapacityAh'),
+      cellResistanceOhm: numberField('pack.cellResistanceOhm').optional(),
+      cutoffCellV: numberField('pack.cutoffCellV').optional(),
+      healthPct: numberField('pack.healthPct').optional(),
+      maxDischargeA: numberField('pack.maxDischargeA').optional(),
+      peukertExponent: numberField('pack.peukertExponent').optional(),
+      count: numberField('pack.count').optional(),
       label: text('Pack name', 80).optional(),
-      massKg: quantity('Pack mass', { min: 0, max: 500, aboveMin: true, unit: 'kg' }).optional(),
-      price: quantity('Pack price', { min: 0, max: 1_000_000 }).optional(),
+      massKg: numberField('pack.massKg').optional(),
+      price: numberField('pack.price').optional(),
     },
     { error: 'Pack is required: chemistry, cells in series and parallel, and cell capacity' },
   )
@@ -149,26 +94,12 @@ export const packSchema = z
  * A two-conductor copper run given by its wire size (AWG or mm², exactly one) and one-way length:
  * the DC lead from pack to amplifier (`Lead`) and the speaker leads (`Speaker lead`).
  */
-function copperPairSchema(noun: string, maxLengthM: number) {
+function copperPairSchema(noun: string, run: 'leads' | 'speakerLeads') {
   return z.object(
     {
-      awg: quantity(`${noun} wire gauge (AWG; 2/0 is -1, 3/0 is -2, 4/0 is -3)`, {
-        min: -3,
-        max: 40,
-        whole: true,
-      }).optional(),
-      areaMm2: quantity(`${noun} conductor area`, {
-        min: 0,
-        max: 500,
-        aboveMin: true,
-        unit: 'mm²',
-      }).optional(),
-      lengthM: quantity(`${noun} length (one way)`, {
-        min: 0,
-        max: maxLengthM,
-        aboveMin: true,
-        unit: 'm',
-      }),
+      awg: numberField(`${run}.awg`).optional(),
+      areaMm2: numberField(`${run}.areaMm2`).optional(),
+      lengthM: numberField(`${run}.lengthM`),
     },
     { error: `${noun}s must give a wire size (awg or areaMm2) and a one-way length` },
   )
@@ -190,18 +121,13 @@ function oneWireSize(lower: string) {
   }
 }
 
-export const leadsSchema = copperPairSchema('Lead', 100)
+export const leadsSchema = copperPairSchema('Lead', 'leads')
   .extend({
-    connectorOhm: quantity('Connector and fuse resistance', {
-      min: 0,
-      max: 1,
-      unit: 'ohm',
-    }).optional(),
+    connectorOhm: numberField('leads.connectorOhm').optional(),
   })
   .superRefine(oneWireSize('lead'))
 
-// ours: 200 m one way covers a long outdoor speaker run; further is a typo or a 100 V line system
-export const speakerLeadsSchema = copperPairSchema('Speaker lead', 200).superRefine(
+export const speakerLeadsSchema = copperPairSchema('Speaker lead', 'speakerLeads').superRefine(
   oneWireSize('speaker lead'),
 )
 
@@ -210,38 +136,18 @@ export const amplifierSchema = z
     {
       class: choice('Amplifier class', AMPLIFIER_CLASSES),
       bridged: flag('Bridged (BTL) output'),
-      channels: quantity('Amplifier channels', { min: 1, max: 16, whole: true }),
-      ratedPowerW: quantity('Rated power per channel', {
-        min: 0,
-        max: 20000,
-        aboveMin: true,
-        unit: 'W',
-      }),
-      ratedLoadOhm: quantity('Rated load', { min: 0, max: 100, aboveMin: true, unit: 'ohm' }),
-      ratedSupplyV: voltage('Rated supply voltage'),
-      ratedThdPct: quantity('Distortion (THD) of the power rating', {
-        min: 0,
-        max: 30,
-        aboveMin: true,
-        unit: '%',
-      }).optional(),
-      supplyMinV: voltage('Minimum supply voltage').optional(),
-      supplyMaxV: voltage('Maximum supply voltage').optional(),
-      lockoutV: voltage('Lock-out (undervoltage mute) voltage').optional(),
-      idleCurrentA: quantity('Idle current', { min: 0, max: 50, unit: 'A' }).optional(),
-      efficiency: quantity('Amplifier efficiency', { min: 0, max: 1, aboveMin: true }).optional(),
-      minLoadOhm: quantity('Minimum load', {
-        min: 0,
-        max: 100,
-        aboveMin: true,
-        unit: 'ohm',
-      }).optional(),
-      // Extension: the board's supply capacitors, which smooth a little of a bass note's ripple.
-      bulkCapacitanceUF: quantity('Bulk capacitance on the supply', {
-        min: 0,
-        max: 1_000_000,
-        unit: 'µF',
-      }).optional(),
+      channels: numberField('amplifier.channels'),
+      ratedPowerW: numberField('amplifier.ratedPowerW'),
+      ratedLoadOhm: numberField('amplifier.ratedLoadOhm'),
+      ratedSupplyV: numberField('amplifier.ratedSupplyV'),
+      ratedThdPct: numberField('amplifier.ratedThdPct').optional(),
+      supplyMinV: numberField('amplifier.supplyMinV').optional(),
+      supplyMaxV: numberField('amplifier.supplyMaxV').optional(),
+      lockoutV: numberField('amplifier.lockoutV').optional(),
+      idleCurrentA: numberField('amplifier.idleCurrentA').optional(),
+      efficiency: numberField('amplifier.efficiency').optional(),
+      minLoadOhm: numberField('amplifier.minLoadOhm').optional(),
+      bulkCapacitanceUF: numberField('amplifier.bulkCapacitanceUF').optional(),
     },
     {
       error: 'Amplifier is required: class, bridged, channels and its rated power, load and supply',
@@ -270,19 +176,11 @@ export const amplifierSchema = z
 
 export const speakersSchema = z.object(
   {
-    driverOhm: quantity('Driver impedance', { min: 0, max: 100, aboveMin: true, unit: 'ohm' }),
-    parallel: quantity('Drivers in parallel per bank', { min: 1, max: 64, whole: true }),
-    banks: quantity('Banks in series', { min: 1, max: 64, whole: true }),
-    sensitivityDb: quantity('Driver sensitivity (1 W, 1 m)', {
-      min: 50,
-      max: 130,
-      unit: 'dB',
-    }).optional(),
-    facingListener: quantity('Drivers facing the listener', {
-      min: 1,
-      max: 4096,
-      whole: true,
-    }).optional(),
+    driverOhm: numberField('speakers.driverOhm'),
+    parallel: numberField('speakers.parallel'),
+    banks: numberField('speakers.banks'),
+    sensitivityDb: numberField('speakers.sensitivityDb').optional(),
+    facingListener: numberField('speakers.facingListener').optional(),
   },
   { error: 'Speakers are required: driver impedance, drivers in parallel and banks in series' },
 )
@@ -291,16 +189,15 @@ export const accessorySchema = z
   .object(
     {
       label: text('Accessory name', 80),
-      powerW: quantity('Accessory power', { min: 0, max: 5000, aboveMin: true, unit: 'W' }),
-      inputMinV: voltage('Accessory minimum input voltage'),
-      inputMaxV: voltage('Accessory maximum input voltage'),
+      powerW: numberField('accessory.powerW'),
+      inputMinV: numberField('accessory.inputMinV'),
+      inputMaxV: numberField('accessory.inputMaxV'),
       feed: choice('Accessory feed', ACCESSORY_FEEDS),
-      outputV: voltage('Converter output voltage').optional(),
-      efficiency: quantity('Converter efficiency', { min: 0, max: 1, aboveMin: true }).optional(),
-      idleW: quantity('Converter idle draw', { min: 0, max: 50, unit: 'W' }).optional(),
-      // Extension: the converter module's own input range, checked against the pack's window.
-      converterInputMinV: voltage('Converter minimum input voltage').optional(),
-      converterInputMaxV: voltage('Converter maximum input voltage').optional(),
+      outputV: numberField('accessory.outputV').optional(),
+      efficiency: numberField('accessory.efficiency').optional(),
+      idleW: numberField('accessory.idleW').optional(),
+      converterInputMinV: numberField('accessory.converterInputMinV').optional(),
+      converterInputMaxV: numberField('accessory.converterInputMaxV').optional(),
     },
     { error: 'Each accessory needs a name, power, input range and feed' },
   )
@@ -335,9 +232,9 @@ export const accessorySchema = z
     }
   })
 
-const crestFactorDb = quantity('Crest factor', { min: 0, max: 30, unit: 'dB' })
-const peakBelowClipDb = quantity('Level (peaks below clipping)', { min: 0, max: 60, unit: 'dB' })
-const playingPct = quantity('Playing share', { min: 0, max: 100, unit: '%' })
+const crestFactorDb = numberField('programme.crestFactorDb')
+const peakBelowClipDb = numberField('programme.peakBelowClipDb')
+const playingPct = numberField('programme.playingPct')
 
 export const programmeSchema = z.object(
   { crestFactorDb, peakBelowClipDb, playingPct: playingPct.optional() },
@@ -348,23 +245,12 @@ export const scheduleSegmentSchema = z
   .object(
     {
       label: text('Segment name', 80),
-      minutes: quantity('Segment length', {
-        min: 0,
-        max: MAX_SCHEDULE_MINUTES,
-        aboveMin: true,
-        unit: 'minutes',
-      }),
+      minutes: numberField('segment.minutes'),
       state: choice('Segment state', SEGMENT_STATES).optional(),
       peakBelowClipDb: peakBelowClipDb.optional(),
       crestFactorDb: crestFactorDb.optional(),
       playingPct: playingPct.optional(),
-      /** Power into the pack after the charger, in a 'charging' segment. */
-      chargeW: quantity('Charging power', {
-        min: 0,
-        max: 5000,
-        aboveMin: true,
-        unit: 'W',
-      }).optional(),
+      chargeW: numberField('segment.chargeW').optional(),
     },
     { error: 'Each schedule segment needs a name and a length in minutes' },
   )
@@ -381,11 +267,7 @@ export const scheduleSegmentSchema = z
 export const swapPolicySchema = z.object(
   {
     mode: choice('Swap policy', SWAP_MODES),
-    belowSocPct: quantity('Swap threshold (state of charge)', {
-      min: 1,
-      max: 99,
-      unit: '%',
-    }).optional(),
+    belowSocPct: numberField('swapPolicy.belowSocPct').optional(),
   },
   { error: 'Swap policy must give a mode' },
 )
@@ -413,13 +295,9 @@ export const estimateRequestSchema = z
           { error: `A schedule may last at most 7 days (${MAX_SCHEDULE_MINUTES} minutes) in all` },
         )
         .optional(),
-      temperatureC: quantity('Temperature', { min: -40, max: 70, unit: '°C' }).optional(),
-      listenerDistanceM: quantity('Listener distance', {
-        min: 0.5,
-        max: 1000,
-        unit: 'm',
-      }).optional(),
-      boundaryGainDb: quantity('Boundary gain', { min: 0, max: 12, unit: 'dB' }).optional(),
+      temperatureC: numberField('temperatureC').optional(),
+      listenerDistanceM: numberField('listenerDistanceM').optional(),
+      boundaryGainDb: numberField('boundaryGainDb').optional(),
       childrenPresent: flag('Children present').optional(),
       swapPolicy: swapPolicySchema.optional(),
     },

@@ -2,7 +2,8 @@
 // venue's chargers. The answer is computed by shared/events/run-event.ts, on the server for the
 // stored item and in the same way for a preview while the crew edits.
 import { z } from 'zod'
-import { SEVERITIES, quantity, text } from './estimate'
+import { SEVERITIES, text } from './estimate'
+import { numberField } from './number-field'
 import { planDateSchema } from './plans'
 import {
   resourceNameSchema,
@@ -26,7 +27,7 @@ const packKindSchema = z
 export const eventPoolEntrySchema = z.object(
   {
     kind: packKindSchema,
-    count: quantity('Packs on hand', { min: 0, max: 50, whole: true }),
+    count: numberField('pool.count'),
   },
   { error: 'Each pool entry needs a pack kind and how many are on hand' },
 )
@@ -34,14 +35,8 @@ export const eventPoolEntrySchema = z.object(
 export const eventChargerSchema = z.object(
   {
     label: text('Charger name', 80),
-    // Ours: 2 kW per pack is above any portable-pack charger; a typo of an extra zero is caught.
-    powerW: quantity('Charger power into each pack', {
-      min: 0,
-      max: 2000,
-      aboveMin: true,
-      unit: 'W',
-    }),
-    slots: quantity('Charger slots', { min: 1, max: 20, whole: true }),
+    powerW: numberField('charger.powerW'),
+    slots: numberField('charger.slots'),
     packKinds: z
       .array(packKindSchema, { error: 'Pack kinds this charger fits must be a list' })
       .min(1, { error: 'Name at least one pack kind this charger fits' })

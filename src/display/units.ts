@@ -9,6 +9,7 @@ import {
   metresToFeet,
   poundsToKilograms,
 } from '@shared/units'
+import type { FieldDisplay } from '@shared/fields'
 import { usePreferencesStore } from '@/stores/preferences'
 import { formatNumber, withUnit } from './format'
 
@@ -113,6 +114,27 @@ export function wireSizeText(
   return imperial ? `${awgName(awg)} (${mm2})` : `${mm2} (${awgName(awg)})`
 }
 
+const lengthIn = (imperial: boolean) => (imperial ? feet : metres)
+const temperatureIn = (imperial: boolean) => (imperial ? fahrenheit : celsius)
+
+/** How a catalogue field is shown (its `display`), in the header's units where there is a choice. */
+export function displayQuantity(display: FieldDisplay | undefined): DisplayQuantity | undefined {
+  switch (display) {
+    case 'milliOhm':
+      return milliOhm
+    case 'percentOfOne':
+      return percentOfOne
+    case 'mass':
+      return mass
+    case 'length':
+      return lengthIn(imperialNow())
+    case 'temperature':
+      return temperatureIn(imperialNow())
+    default:
+      return undefined
+  }
+}
+
 export interface DisplayUnits {
   imperial: ComputedRef<boolean>
   length: ComputedRef<DisplayQuantity>
@@ -125,26 +147,17 @@ export function useDisplayUnits(): DisplayUnits {
   const imperial = computed(() => preferences.units === 'imperial')
   return {
     imperial,
-    length: computed(() => (imperial.value ? feet : metres)),
-    temperature: computed(() => (imperial.value ? fahrenheit : celsius)),
+    length: computed(() => lengthIn(imperial.value)),
+    temperature: computed(() => temperatureIn(imperial.value)),
   }
 }
 
 /** An SI value shown in a display quantity, rounded, without its unit (a column names it). */
-export function quantityNumber(si: number, quantity: DisplayQuantity): string {
+export function showFigure(si: number, quantity: DisplayQuantity): string {
   return formatNumber(quantity.toDisplay(si), quantity.decimals)
 }
 
 /** An SI value shown in a display quantity, rounded, with its unit. */
 export function showQuantity(si: number, quantity: DisplayQuantity): string {
-  return withUnit(quantityNumber(si, quantity), quantity.unit)
-}
-
-/**
- * An SI value as a number to put in a field of that display quantity: one decimal more than the
- * quantity's figures show, so a typed value survives the round trip through SI.
- */
-export function fieldValue(si: number, quantity: DisplayQuantity): number {
-  const factor = 10 ** (quantity.decimals + 1)
-  return Math.round(quantity.toDisplay(si) * factor) / factor
+  return withUnit(showFigure(si, quantity), quantity.unit)
 }

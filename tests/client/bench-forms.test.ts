@@ -96,7 +96,7 @@ describe('the bench forms', { timeout: benchTestTimeoutMs }, () => {
     // Two sizes at once is refused at the field, as for the DC lead.
     await typeInto(wrapper, 'speakerLeads.areaMm2', '0')
     expect(wrapper.get('[data-testid="message-speakerLeads.areaMm2"]').text()).toMatch(
-      /Speaker lead conductor area/,
+      /^Speaker lead wire area must be/,
     )
     wrapper.unmount()
   })

@@ -117,7 +117,7 @@ describe('the part form', () => {
     const save = vi.fn(() => Promise.resolve())
     const wrapper = mountPartForm('packs', save)
     await wrapper.find('#part-packs-name').setValue('Spare pack')
-    await wrapper.find('#part-packs-seriesCells').setValue('0')
+    await wrapper.find('[data-testid="field-seriesCells"] input').setValue('0')
     await wrapper.find('form').trigger('submit')
     await flushPromises()
     expect(wrapper.text()).toContain('Cells in series must be a whole number from 1 to 100')
@@ -129,12 +129,14 @@ describe('the part form', () => {
     const save = vi.fn(() => Promise.resolve())
     const wrapper = mountPartForm('packs', save)
     await wrapper.find('#part-packs-name').setValue('Spare pack')
-    await wrapper.find('#part-packs-seriesCells').setValue('5')
-    await wrapper.find('#part-packs-parallelCells').setValue('2')
-    await wrapper.find('#part-packs-cellCapacityAh').setValue('4')
+    await wrapper.find('[data-testid="field-seriesCells"] input').setValue('5')
+    await wrapper.find('[data-testid="field-parallelCells"] input').setValue('2')
+    await wrapper.find('[data-testid="field-cellCapacityAh"] input').setValue('4')
     // 22 mΩ, a typical 18650 power cell's DC resistance (from memory), is 0.022 Ω.
-    await wrapper.find('#part-packs-cellResistanceOhm').setValue('22')
-    expect(wrapper.find('label[for="part-packs-cellResistanceOhm"]').exists()).toBe(true)
+    await wrapper.find('[data-testid="field-cellResistanceOhm"] input').setValue('22')
+    expect(wrapper.find('[data-testid="field-cellResistanceOhm"] label').text()).toBe(
+      'Cell resistance (optional)',
+    )
     expect(wrapper.text()).toContain('mΩ')
     await wrapper.find('form').trigger('submit')
     await flushPromises()
@@ -160,7 +162,8 @@ describe('the part form', () => {
       efficiency: 0.88,
     }
     const editing = mountPartForm('accessories', save, part)
-    const efficiency = editing.find('#part-accessories-efficiency').element as HTMLInputElement
+    const efficiency = editing.find('[data-testid="field-efficiency"] input')
+      .element as HTMLInputElement
     expect(efficiency.value).toBe('88')
     editing.unmount()
   })

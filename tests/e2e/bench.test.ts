@@ -52,13 +52,13 @@ describe('the rig bench in Chromium', () => {
     expect(await page.getByLabel('Cells in series').inputValue()).toBe('5')
     await page.getByLabel('Amplifier from the library').selectOption('amp-d-mono-100w')
     await page.getByLabel('Arrangement from the library').selectOption('spk-2x-8ohm-parallel')
-    await expect.poll(() => page.getByLabel('Channels').inputValue()).toBe('1')
+    await expect.poll(() => page.getByLabel('Amplifier channels').inputValue()).toBe('1')
 
     // Definition of the decibel: 6 dB further below clipping is a quarter of the average output
     // power, so the same charge lasts longer.
     const chartBefore = await chartState(page)
     const runtimeBefore = await runtime(page)
-    const level = page.getByLabel('Level: peaks below clipping')
+    const level = page.getByLabel('Level (peaks below clipping)')
     await level.fill('8')
     await level.press('Tab')
     const runtimeAfter = await waitForChange(() => runtime(page), runtimeBefore)
@@ -78,7 +78,7 @@ describe('the rig bench in Chromium', () => {
     const { page } = app.browser
     await openBench(page)
     const before = await runtime(page)
-    const levelBefore = await page.getByLabel('Level: peaks below clipping').inputValue()
+    const levelBefore = await page.getByLabel('Level (peaks below clipping)').inputValue()
     await page.getByTestId('import-input').setInputFiles({
       name: 'shopping-list.json',
       mimeType: 'application/json',
@@ -89,21 +89,21 @@ describe('the rig bench in Chromium', () => {
     expect(await message.innerText()).toContain('not a Loudhour rig file')
     expect(await message.getAttribute('role')).toBe('alert')
     expect(await runtime(page)).toBe(before)
-    expect(await page.getByLabel('Level: peaks below clipping').inputValue()).toBe(levelBefore)
+    expect(await page.getByLabel('Level (peaks below clipping)').inputValue()).toBe(levelBefore)
   })
 
   it('keeps the rig across a reload', async () => {
     const { page } = app.browser
     await openBench(page)
     // A level no library rig uses, so only the stored draft can bring it back.
-    const level = page.getByLabel('Level: peaks below clipping')
+    const level = page.getByLabel('Level (peaks below clipping)')
     const runtimeBefore = await runtime(page)
     await level.fill('11')
     await level.press('Tab')
     await waitForChange(() => runtime(page), runtimeBefore)
     await page.reload()
     await page.getByTestId('runtime').waitFor()
-    expect(await page.getByLabel('Level: peaks below clipping').inputValue()).toBe('11')
+    expect(await page.getByLabel('Level (peaks below clipping)').inputValue()).toBe('11')
   })
 
   it('has no console errors and no serious accessibility violations, light and dark', async () => {

@@ -60,7 +60,9 @@ describe('estimate request schema', () => {
   it.each([0, 1.2, -0.5])('rejects an efficiency of %s outside (0, 1]', (value) => {
     const issues = issuesFor((request) => (amplifier(request).efficiency = value))
     expect(issues[0]?.path).toEqual(['amplifier', 'efficiency'])
-    expect(issues[0]?.message).toBe('Amplifier efficiency must be more than 0 and at most 1')
+    expect(issues[0]?.message).toBe(
+      'Amplifier efficiency must be more than 0 and at most 1 (1 is 100 %)',
+    )
   })
 
   it('accepts an efficiency of exactly 1', () => {

@@ -1,4 +1,4 @@
-import { partKinds } from '@/components/parts/partKinds'
+import { labelOf, partKinds } from '@/components/parts/partKinds'
 import type { PlanOfRig, RigKeepsHealthReason } from '@shared/discharge/health-effect'
 import { formatNumber, withUnit } from '@/display/format'
 
@@ -6,8 +6,10 @@ import { formatNumber, withUnit } from '@/display/format'
 // rig or plan, the reason in plain words.
 
 const packFields = partKinds.find((kind) => kind.id === 'packs')?.fields ?? []
-const fieldLabel = (key: string) =>
-  (packFields.find((field) => field.key === key)?.label ?? key).toLowerCase()
+const fieldLabel = (key: string) => {
+  const field = packFields.find((candidate) => candidate.key === key)
+  return (field ? labelOf(field) : key).toLowerCase()
+}
 
 /** "87.3 %", or "as labelled" for no figure. */
 export function healthText(healthPct: number | null): string {

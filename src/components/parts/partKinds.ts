@@ -1,12 +1,6 @@
 import type { z } from 'zod'
-import {
-  mass,
-  milliOhm,
-  percentOfOne,
-  quantityNumber,
-  showQuantity,
-  type DisplayQuantity,
-} from '@/display/units'
+import { fieldEntry, type FieldKey } from '@shared/fields'
+import { displayQuantity, showFigure, showQuantity } from '@/display/units'
 import {
   accessoriesApi,
   amplifiersApi,
@@ -29,21 +23,33 @@ import {
   type SavedItemMeta,
 } from '@shared/schemas/resources'
 
-// The four kinds of part as data: the form fields (datasheet values, with their units), the
-// columns of the tables, the shared schema that checks a form, and the built-in library beside.
+// The four kinds of part as data: the form fields (datasheet values; a number field's label, unit
+// and help are the field catalogue's), the columns of the tables, the shared schema that checks a
+// form, and the built-in library beside.
 
-export interface PartField {
+interface PartFieldBase {
+  /** The property of the part. */
   key: string
-  label: string
-  type: 'number' | 'whole' | 'choice' | 'flag'
-  unit?: string
-  /** Shown and typed in this quantity (mΩ, %), stored in the engine's unit; replaces `unit`. */
-  quantity?: DisplayQuantity
-  options?: readonly string[]
-  /** Shown under the field: where to find the value on a datasheet. */
-  hint?: string
   required?: boolean
 }
+/** A number: its entry in the field catalogue. */
+export interface PartNumberField extends PartFieldBase {
+  type: 'number'
+  field: FieldKey
+}
+/** One of a list of words (chemistry, class, feed). */
+export interface PartChoiceField extends PartFieldBase {
+  type: 'choice'
+  label: string
+  options: readonly string[]
+  /** Shown under the field. */
+  hint?: string
+}
+export interface PartFlagField extends PartFieldBase {
+  type: 'flag'
+  label: string
+}
+export type PartField = PartNumberField | PartChoiceField | PartFlagField
 
 export type PartRecord = SavedItemMeta & Record<string, unknown>
 
@@ -60,6 +66,11 @@ export interface PartKind {
   library: readonly { id: string; label: string; part: object }[]
   /** What a new form starts with (choices need a value; numbers start empty). */
   defaults: Record<string, unknown>
+}
+
+/** A number field of a part: its property is the catalogue key's last part. */
+function number(field: FieldKey, required = false): PartNumberField {
+  return { key: field.slice(field.indexOf('.') + 1), type: 'number', field, required }
 }
 
 const chemistryHint = 'Li-ion covers NMC and NCA tool packs; lead-acid covers AGM and gel.'
@@ -80,37 +91,17 @@ export const partKinds: PartKind[] = [
         hint: chemistryHint,
         required: true,
       },
-      {
-        key: 'seriesCells',
-        label: 'Cells in series',
-        type: 'whole',
-        required: true,
-        hint: 'A "20 V max" tool pack has 5.',
-      },
-      { key: 'parallelCells', label: 'Cells in parallel', type: 'whole', required: true },
-      {
-        key: 'cellCapacityAh',
-        label: 'Cell capacity',
-        type: 'number',
-        unit: 'Ah',
-        required: true,
-        hint: 'Pack Ah ÷ cells in parallel.',
-      },
-      {
-        key: 'cellResistanceOhm',
-        label: 'Cell resistance',
-        type: 'number',
-        // As the bench and datasheets give it.
-        quantity: milliOhm,
-        hint: 'DC internal resistance of one cell.',
-      },
-      { key: 'cutoffCellV', label: 'Cutoff per cell', type: 'number', unit: 'V' },
-      { key: 'healthPct', label: 'Health', type: 'number', unit: '%' },
-      { key: 'maxDischargeA', label: 'Max continuous discharge', type: 'number', unit: 'A' },
-      { key: 'peukertExponent', label: 'Peukert exponent', type: 'number' },
-      { key: 'count', label: 'Packs on hand', type: 'whole' },
-      { key: 'massKg', label: 'Mass', type: 'number', quantity: mass },
-      { key: 'price', label: 'Price', type: 'number' },
+      number('pack.seriesCells', true),
+      number('pack.parallelCells', true),
+      number('pack.cellCapacityAh', true),
+      number('pack.cellResistanceOhm'),
+      number('pack.cutoffCellV'),
+      number('pack.healthPct'),
+      number('pack.maxDischargeA'),
+      number('pack.peukertExponent'),
+      number('pack.count'),
+      number('pack.massKg'),
+      number('pack.price'),
     ],
     columns: ['chemistry', 'seriesCells', 'parallelCells', 'cellCapacityAh', 'massKg'],
     library: libraryPacks,
@@ -125,30 +116,18 @@ export const partKinds: PartKind[] = [
     fields: [
       { key: 'class', label: 'Class', type: 'choice', options: AMPLIFIER_CLASSES, required: true },
       { key: 'bridged', label: 'Bridged (BTL) output', type: 'flag', required: true },
-      { key: 'channels', label: 'Channels', type: 'whole', required: true },
-      {
-        key: 'ratedPowerW',
-        label: 'Rated power per channel',
-        type: 'number',
-        unit: 'W',
-        required: true,
-      },
-      { key: 'ratedLoadOhm', label: 'Rated into', type: 'number', unit: 'ohm', required: true },
-      { key: 'ratedSupplyV', label: 'Rated at supply', type: 'number', unit: 'V', required: true },
-      {
-        key: 'ratedThdPct',
-        label: 'Rated at distortion',
-        type: 'number',
-        unit: '%',
-        hint: 'Usually 1 % or 10 % THD.',
-      },
-      { key: 'supplyMinV', label: 'Minimum supply', type: 'number', unit: 'V' },
-      { key: 'supplyMaxV', label: 'Maximum supply', type: 'number', unit: 'V' },
-      { key: 'lockoutV', label: 'Lock-out (undervoltage mute)', type: 'number', unit: 'V' },
-      { key: 'idleCurrentA', label: 'Idle current', type: 'number', unit: 'A' },
-      { key: 'efficiency', label: 'Efficiency', type: 'number', quantity: percentOfOne },
-      { key: 'minLoadOhm', label: 'Minimum load', type: 'number', unit: 'ohm' },
-      { key: 'bulkCapacitanceUF', label: 'Bulk capacitance', type: 'number', unit: 'µF' },
+      number('amplifier.channels', true),
+      number('amplifier.ratedPowerW', true),
+      number('amplifier.ratedLoadOhm', true),
+      number('amplifier.ratedSupplyV', true),
+      number('amplifier.ratedThdPct'),
+      number('amplifier.supplyMinV'),
+      number('amplifier.supplyMaxV'),
+      number('amplifier.lockoutV'),
+      number('amplifier.idleCurrentA'),
+      number('amplifier.efficiency'),
+      number('amplifier.minLoadOhm'),
+      number('amplifier.bulkCapacitanceUF'),
     ],
     columns: ['class', 'channels', 'ratedPowerW', 'ratedLoadOhm', 'ratedSupplyV'],
     library: libraryAmplifiers,
@@ -161,17 +140,11 @@ export const partKinds: PartKind[] = [
     api: speakersApi as unknown as PartKind['api'],
     schema: speakersBodySchema,
     fields: [
-      { key: 'driverOhm', label: 'Driver impedance', type: 'number', unit: 'ohm', required: true },
-      { key: 'parallel', label: 'Drivers in parallel per bank', type: 'whole', required: true },
-      {
-        key: 'banks',
-        label: 'Banks in series',
-        type: 'whole',
-        required: true,
-        hint: 'Per amplifier channel.',
-      },
-      { key: 'sensitivityDb', label: 'Sensitivity (1 W, 1 m)', type: 'number', unit: 'dB' },
-      { key: 'facingListener', label: 'Drivers facing the listener', type: 'whole' },
+      number('speakers.driverOhm', true),
+      number('speakers.parallel', true),
+      number('speakers.banks', true),
+      number('speakers.sensitivityDb'),
+      number('speakers.facingListener'),
     ],
     columns: ['driverOhm', 'parallel', 'banks', 'sensitivityDb'],
     library: librarySpeakers,
@@ -184,9 +157,9 @@ export const partKinds: PartKind[] = [
     api: accessoriesApi as unknown as PartKind['api'],
     schema: accessoryBodySchema,
     fields: [
-      { key: 'powerW', label: 'Power', type: 'number', unit: 'W', required: true },
-      { key: 'inputMinV', label: 'Minimum input', type: 'number', unit: 'V', required: true },
-      { key: 'inputMaxV', label: 'Maximum input', type: 'number', unit: 'V', required: true },
+      number('accessory.powerW', true),
+      number('accessory.inputMinV', true),
+      number('accessory.inputMaxV', true),
       {
         key: 'feed',
         label: 'Fed through',
@@ -194,16 +167,11 @@ export const partKinds: PartKind[] = [
         options: ACCESSORY_FEEDS,
         required: true,
       },
-      { key: 'outputV', label: 'Converter output', type: 'number', unit: 'V' },
-      {
-        key: 'efficiency',
-        label: 'Converter efficiency',
-        type: 'number',
-        quantity: percentOfOne,
-      },
-      { key: 'idleW', label: 'Converter idle draw', type: 'number', unit: 'W' },
-      { key: 'converterInputMinV', label: 'Converter input minimum', type: 'number', unit: 'V' },
-      { key: 'converterInputMaxV', label: 'Converter input maximum', type: 'number', unit: 'V' },
+      number('accessory.outputV'),
+      number('accessory.efficiency'),
+      number('accessory.idleW'),
+      number('accessory.converterInputMinV'),
+      number('accessory.converterInputMaxV'),
     ],
     columns: ['powerW', 'inputMinV', 'inputMaxV', 'feed'],
     library: libraryAccessories,
@@ -215,23 +183,25 @@ export function fieldOf(kind: PartKind, key: string): PartField | undefined {
   return kind.fields.find((field) => field.key === key)
 }
 
-/**
- * A part's value as a table shows it: the figure in the unit the switch asks for, and the unit
- * unless the column's title carries it (`unitInTitle`).
- */
-export function shownValue(
-  field: PartField | undefined,
-  value: unknown,
-  { unitInTitle = false } = {},
-): string {
-  if (value === undefined || value === null) return '—'
-  if (typeof value === 'boolean') return value ? 'yes' : 'no'
-  if (typeof value === 'number' && field?.quantity)
-    return unitInTitle ? quantityNumber(value, field.quantity) : showQuantity(value, field.quantity)
-  if (typeof value === 'number' && field?.unit && !unitInTitle) return `${value}\u00a0${field.unit}`
-  return String(value)
+/** A field's label: the catalogue's for a number. */
+export function labelOf(field: PartField): string {
+  return field.type === 'number' ? fieldEntry(field.field).label : field.label
 }
 
 /** The unit a field is shown and typed in. */
-export const unitOf = (field: PartField | undefined): string | undefined =>
-  field?.quantity?.unit ?? field?.unit
+export function unitOf(field: PartField | undefined): string | undefined {
+  if (field?.type !== 'number') return undefined
+  const entry = fieldEntry(field.field)
+  return displayQuantity(entry.display)?.unit ?? entry.unit
+}
+
+/** A part's value as a table shows it: the figure, and its unit unless the column names it. */
+export function shownValue(field: PartField | undefined, value: unknown, withUnit = true): string {
+  if (value === undefined || value === null) return '—'
+  if (typeof value === 'boolean') return value ? 'yes' : 'no'
+  if (typeof value !== 'number' || field?.type !== 'number') return String(value)
+  const entry = fieldEntry(field.field)
+  const quantity = displayQuantity(entry.display)
+  if (quantity) return withUnit ? showQuantity(value, quantity) : showFigure(value, quantity)
+  return withUnit && entry.unit ? `${value}\u00a0${entry.unit}` : String(value)
+}

@@ -1,0 +1,113 @@
+import { describe, expect, it } from 'vitest'
+import type { z } from 'zod'
+import { FIELDS, type FieldKey, type NumberFieldEntry } from '../../shared/fields'
+import {
+  accessorySchema,
+  amplifierSchema,
+  estimateRequestSchema,
+  leadsSchema,
+  packSchema,
+  programmeSchema,
+  scheduleSegmentSchema,
+  speakerLeadsSchema,
+  speakersSchema,
+  swapPolicySchema,
+} from '../../shared/schemas/estimate'
+import { eventChargerSchema, eventPoolEntrySchema } from '../../shared/schemas/events'
+
+// The catalogue against the schemas the server checks with: every field's bounds are the ones
+// the schema enforces, and every message names the field by the label the forms show. These are
+// wiring checks (the schemas are built from the catalogue); the facts behind the bounds follow.
+
+/** The object schema each key's first part names; a key without a dot is the request's own. */
+const objectSchemas: Record<string, { shape: Record<string, z.ZodType> }> = {
+  pack: packSchema,
+  leads: leadsSchema,
+  speakerLeads: speakerLeadsSchema,
+  amplifier: amplifierSchema,
+  speakers: speakersSchema,
+  accessory: accessorySchema,
+  programme: programmeSchema,
+  segment: scheduleSegmentSchema,
+  swapPolicy: swapPolicySchema,
+  pool: eventPoolEntrySchema,
+  charger: eventChargerSchema,
+  '': estimateRequestSchema,
+}
+
+function schemaOf(key: string): z.ZodType | undefined {
+  const [object, property] = key.includes('.') ? key.split('.') : ['', key]
+  return objectSchemas[object ?? '']?.shape[property ?? '']
+}
+
+function messagesFor(key: string, value: unknown): string[] {
+  const parsed = schemaOf(key)!.safeParse(value)
+  return parsed.success ? [] : parsed.error.issues.map((issue) => issue.message)
+}
+
+const entries = Object.entries(FIELDS) as [FieldKey, NumberFieldEntry][]
+
+describe('the field catalogue', () => {
+  it.each(entries.map(([key]) => key))('has a schema field for %s', (key) => {
+    expect(schemaOf(key)).toBeDefined()
+  })
+
+  it.each(entries)('bounds %s as the schema does, naming its label', (key, entry) => {
+    const step = entry.step ?? 1
+    expect(messagesFor(key, entry.max)).toEqual([])
+    const over = messagesFor(key, entry.max + step)
+    expect(over).toHaveLength(1)
+    expect(over[0]).toMatch(new RegExp(`^${escape(entry.label)} must be `))
+    if (entry.unit) expect(over[0]).toContain(` ${entry.unit}`)
+
+    if (entry.aboveMin) {
+      expect(messagesFor(key, entry.min)).toEqual(over)
+    } else {
+      expect(messagesFor(key, entry.min)).toEqual([])
+      expect(messagesFor(key, entry.min - step)).toEqual(over)
+    }
+    // Text is never a number, whatever a form would make of it.
+    expect(messagesFor(key, 'abc')).toEqual(over)
+    if (entry.whole) expect(messagesFor(key, entry.min + 0.5)).toEqual(over)
+  })
+
+  it('gives every field a label of its own, so a message names one field', () => {
+    const labels = entries.map(([, entry]) => entry.label)
+    expect(new Set(labels).size).toBe(labels.length)
+  })
+
+  it('says the whole range and unit in one sentence', () => {
+    expect(messagesFor('pack.seriesCells', 0)).toEqual([
+      'Cells in series must be a whole number from 1 to 100',
+    ])
+    expect(messagesFor('pack.cellCapacityAh', 0)).toEqual([
+      'Cell capacity must be more than 0 and at most 1000 Ah',
+    ])
+    expect(messagesFor('temperatureC', 71)).toEqual([
+      'Temperature must be a number from -40 to 70 °C',
+    ])
+    // Source: ASTM B258: the gauges above 0 AWG are written 1/0, 2/0, 3/0 and 4/0.
+    expect(messagesFor('leads.awg', -4)).toEqual([
+      'Lead wire gauge must be a whole number from -3 to 40 AWG (2/0 is -1, 3/0 is -2, 4/0 is -3)',
+    ])
+  })
+
+  it('keeps the physical bounds', () => {
+    // Source: conservation of energy: no amplifier or converter gives out more than it takes in.
+    expect(FIELDS['amplifier.efficiency'].max).toBe(1)
+    expect(FIELDS['accessory.efficiency'].max).toBe(1)
+    // Source: a state of charge lies between empty (0 %) and full (100 %); a swap threshold at
+    // either end would never or always swap.
+    expect(FIELDS['swapPolicy.belowSocPct'].min).toBeGreaterThan(0)
+    expect(FIELDS['swapPolicy.belowSocPct'].max).toBeLessThan(100)
+    // Source: Peukert's law: an exponent of 1 is an ideal cell, and no real cell does better.
+    expect(FIELDS['pack.peukertExponent'].min).toBe(1)
+    // Source: an ideal conductor and a cell without resistance do not exist: zero is refused.
+    expect(FIELDS['pack.cellResistanceOhm'].aboveMin).toBe(true)
+    expect(FIELDS['leads.areaMm2'].aboveMin).toBe(true)
+  })
+})
+
+function escape(text: string): string {
+  return text.replace(/[.*+?^${}()|[\]\\]/g, '\\$&')
+}
