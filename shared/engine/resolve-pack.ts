@@ -3,6 +3,7 @@
 import type { EstimateRequest } from '../schemas/estimate'
 import type { ChemistryData } from './chemistry'
 import { CHEMISTRY_DATA, defaultCellResistanceOhm } from './chemistry'
+import type { PackInputs } from './pack'
 import { ageingResistanceFactor } from './pack'
 import type { DefaultPicker } from './resolve-assumed'
 import type { ResolvedRequest } from './resolve'
@@ -13,6 +14,19 @@ export const DEFAULT_PACK_COUNT = 1
 type PackSpec = EstimateRequest['pack']
 
 export function resolvePack(pack: PackSpec, pick: DefaultPicker): ResolvedRequest['pack'] {
+  return {
+    ...packInputs(pack, pick),
+    count: pick(pack.count, 'pack.count', DEFAULT_PACK_COUNT, 'our default: one pack'),
+    maxDischargeA: pack.maxDischargeA ?? null,
+    label: pack.label,
+    massKg: pack.massKg,
+    price: pack.price,
+  }
+}
+
+/** The fields the pack model takes (pack.ts), every default applied: a rig's pack and a saved
+ *  pack read against its discharge log (discharge-model.ts) take the same ones. */
+export function packInputs(pack: PackSpec, pick: DefaultPicker): PackInputs {
   const chemistry = CHEMISTRY_DATA[pack.chemistry]
   const healthPct = pick(
     pack.healthPct,
@@ -41,11 +55,6 @@ export function resolvePack(pack: PackSpec, pick: DefaultPicker): ResolvedReques
     ),
     // A Peukert exponent given by the user carries the whole rate effect.
     rateLossPerC: pack.peukertExponent === undefined ? chemistry.rateLossPerC : 0,
-    count: pick(pack.count, 'pack.count', DEFAULT_PACK_COUNT, 'our default: one pack'),
-    maxDischargeA: pack.maxDischargeA ?? null,
-    label: pack.label,
-    massKg: pack.massKg,
-    price: pack.price,
   }
 }
 
