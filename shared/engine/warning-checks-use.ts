@@ -34,7 +34,7 @@ export function hearingWarnings(facts: WarningFacts): EstimateWarning[] {
   const splDb = facts.averageSplDb
   if (splDb === null) return []
   const found: EstimateWarning[] = []
-  const level = Math.round(splDb)
+  const levelDb = Math.round(splDb)
   const permitted =
     facts.permittedMinutes === null
       ? ''
@@ -43,14 +43,14 @@ export function hearingWarnings(facts: WarningFacts): EstimateWarning[] {
     found.push(
       warning(
         'hearing-over-venue-limit',
-        `The estimated level at the listener is ${level} dB, above the WHO venue figure of 100 dB LAeq over 15 minutes${permitted}: lower the level or move the audience back. Follow local rules.`,
+        `The estimated level at the listener is ${levelDb} dB, above the WHO venue figure of 100 dB LAeq over 15 minutes${permitted}: lower the level or move the audience back. Follow local rules.`,
       ),
     )
   } else if (splDb > NIOSH_REL_DBA) {
     found.push(
       warning(
         'hearing-caution',
-        `The estimated level at the listener is ${level} dB, above 85 dBA${permitted}: lower the level, keep people back from the speakers, or offer hearing protection. Follow local rules.`,
+        `The estimated level at the listener is ${levelDb} dB, above 85 dBA${permitted}: lower the level, keep people back from the speakers, or offer hearing protection. Follow local rules.`,
       ),
     )
   }
@@ -58,7 +58,7 @@ export function hearingWarnings(facts: WarningFacts): EstimateWarning[] {
     found.push(
       warning(
         'children-present',
-        `Children are present: the estimated ${level} dB is above the stricter ${CHILDREN_CAUTION_DB} dB aimed at for them. Lower the level, keep children well back from the speakers, and follow local rules.`,
+        `Children are present: the estimated ${levelDb} dB is above the stricter ${CHILDREN_CAUTION_DB} dB aimed at for them. Lower the level, keep children well back from the speakers, and follow local rules.`,
       ),
     )
   }
@@ -84,7 +84,7 @@ export function leadAcidDepthWarnings(facts: WarningFacts): EstimateWarning[] {
 }
 
 export function temperatureWarnings(facts: WarningFacts): EstimateWarning[] {
-  const temperature = fixed(facts.temperatureC, 0)
+  const temperatureC = fixed(facts.temperatureC, 0)
   if (facts.temperatureC < COLD_PACK_C) {
     const charge = CHEMISTRY_DATA[facts.chemistry].isLithium
       ? ' Never charge lithium packs below 0 °C.'
@@ -92,7 +92,7 @@ export function temperatureWarnings(facts: WarningFacts): EstimateWarning[] {
     return [
       warning(
         'cold-pack',
-        `At ${temperature} °C the pack gives about ${Math.round(facts.capacityFactor * 100)} % of its capacity and sags more: keep packs warm until use, or bring more.${charge}`,
+        `At ${temperatureC} °C the pack gives about ${Math.round(facts.capacityFactor * 100)} % of its capacity and sags more: keep packs warm until use, or bring more.${charge}`,
       ),
     ]
   }
@@ -100,7 +100,7 @@ export function temperatureWarnings(facts: WarningFacts): EstimateWarning[] {
     return [
       warning(
         'hot-pack',
-        `At ${temperature} °C packs age fast and lithium packs get nearer their limits: keep them in the shade and out of closed cars.`,
+        `At ${temperatureC} °C packs age fast and lithium packs get nearer their limits: keep them in the shade and out of closed cars.`,
       ),
     ]
   }
