@@ -42,7 +42,7 @@ export interface AccessoryInputs {
   /**
    * The input range of the part the pack's voltage reaches: the accessory itself when fed direct,
    * the converter module's own range when given, else null (a regulated module taken to accept
-   * the window). An isolated feed without its module's range takes the accessory's (resolve.ts).
+   * the window). An isolated feed without its module's range takes the accessory's (resolve-accessories.ts).
    */
   exposedInput: { minV: number; maxV: number } | null
 }

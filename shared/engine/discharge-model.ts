@@ -1,15 +1,15 @@
 // The pack model under a constant current, for drawing beside a measured discharge log, and the
 // limits a log is read against. Uses the same pack model as the estimate (pack.ts, docs/model.md §1).
 import type { PackSpec } from '../schemas/estimate'
-import { CHEMISTRY_DATA, defaultCellResistanceOhm } from './chemistry'
 import {
-  ageingResistanceFactor,
   buildPack,
   chargeRateA as packChargeRateA,
   packOpenCircuitV,
   type PackInputs,
 } from './pack'
-import { DEFAULT_HEALTH_PCT, DEFAULT_TEMPERATURE_C } from './resolve'
+import { DEFAULT_TEMPERATURE_C } from './resolve'
+import { assumptionRecorder } from './resolve-assumed'
+import { packInputs } from './resolve-pack'
 
 export interface ModelDischargePoint {
   minute: number
@@ -24,26 +24,10 @@ export interface ModelDischarge {
   stopReason: 'pack-cutoff' | 'pack-empty'
 }
 
-/** A saved pack's fields with the engine's defaults applied (as resolve.ts does for a rig). */
+/** A saved pack's fields with the engine's defaults applied, the same as a rig's pack. */
 export function packInputsOf(spec: PackSpec): PackInputs {
-  const chemistry = CHEMISTRY_DATA[spec.chemistry]
-  const healthPct = spec.healthPct ?? DEFAULT_HEALTH_PCT
-  // The same defaults as a rig's pack (resolve.ts): a worn pack's default resistance rises, and
-  // lithium loses a little charge to rate unless a Peukert exponent is given.
-  return {
-    chemistry: spec.chemistry,
-    seriesCells: spec.seriesCells,
-    parallelCells: spec.parallelCells,
-    cellCapacityAh: spec.cellCapacityAh,
-    cellResistanceOhm:
-      spec.cellResistanceOhm ??
-      defaultCellResistanceOhm(spec.chemistry, spec.cellCapacityAh) *
-        ageingResistanceFactor(healthPct),
-    cutoffCellV: spec.cutoffCellV ?? chemistry.cutoffCellV,
-    healthPct,
-    peukertExponent: spec.peukertExponent ?? chemistry.peukertExponent,
-    rateLossPerC: spec.peukertExponent === undefined ? chemistry.rateLossPerC : 0,
-  }
+  // Only the values: the discharge model's answers have no assumed[] to list the defaults in.
+  return packInputs(spec, assumptionRecorder().pick)
 }
 
 /** What a log of this pack is measured against: cutoff = s × cutoff per cell, rated = p × cell Ah. */

@@ -2,7 +2,7 @@ import { CHEMISTRY_DATA, capacityTemperatureFactor, resistanceTemperatureFactor 
 import type { Chemistry } from './chemistry'
 import { interpolate } from './table'
 
-/** Pack inputs with every default already applied (see resolve.ts). */
+/** Pack inputs with every default already applied (see resolve-pack.ts). */
 export interface PackInputs {
   chemistry: Chemistry
   seriesCells: number
