@@ -1,19 +1,17 @@
 // What each kind of segment does to the pack in the rig, step by step (docs/model.md §7, §12):
 // at rest it keeps its charge, on a charger it gains charge, powered it gives charge until the
 // segment ends or the pack stops. A stopped pack makes way for the next one on hand, if any.
-import type { StopReason } from '../schemas/estimate'
+// What the steps write down (chart points, pack turns, swaps, segment ends) is here too: the step
+// loop calls it every step, and a call within one module costs less than one across modules
+// (the engine bench runs under vitest, whose module wrapper reads each imported name per call).
+import type { SegmentState, StopReason } from '../schemas/estimate'
 import { chargeAh } from './charging'
 import { operatingStop, type RunSegment } from './operating-point'
 import { chargeRateA as packChargeRateA, packOpenCircuitV } from './pack'
-import {
-  MAX_STEP_S,
-  closePackRun,
-  endSegment,
-  outcomeOf,
-  keepPoint,
-  swapIn,
-  type RunState,
-} from './run-state'
+import type { PackEndReason, RunOutcome } from './run'
+import type { RunState } from './run-state'
+
+export const MAX_STEP_S = 10 // docs/model.md §7: step ≤ 10 s of simulated time
 
 // Ours: time left in a segment below this is the rounding of the step subtractions, not time.
 const SEGMENT_DONE_S = 1e-9
@@ -184,4 +182,114 @@ function takePoweredStep(run: RunState, segment: RunSegment): void {
   at.elapsedS += stepS
   step.remainingS -= stepS
   step.emptied = emptied
+}
+
+/**
+ * Keeps a point as the latest (a pack's closing chart point) and charts it: a 'forced' point
+ * always, a 'step' on the timeline's stride or as the first of a segment or pack.
+ */
+export function keepPoint(
+  run: RunState,
+  voltageV: number,
+  drawW: number,
+  supplyV: number,
+  state: SegmentState,
+  headroomPeakW: number,
+  kind: 'step' | 'forced',
+): void {
+  const at = run.at
+  at.lastVoltageV = voltageV
+  at.lastDrawW = drawW
+  at.lastSupplyV = supplyV
+  at.lastState = state
+  at.lastHeadroomPeakW = headroomPeakW
+  const timeline = run.timeline
+  if (!timeline) return
+  let forced = true
+  if (kind === 'step') {
+    const due = at.forceNextSample || at.stepCount % timeline.stride === 0
+    at.stepCount++
+    if (!due) return
+    forced = at.forceNextSample
+    at.forceNextSample = false
+  }
+  const clipW = run.rig.amplifier.clipPowerPerV2 * supplyV * supplyV
+  timeline.push(
+    at.elapsedS / 60,
+    at.soc * 100,
+    voltageV,
+    drawW,
+    10 * Math.log10(clipW / headroomPeakW),
+    clipW,
+    at.pack,
+    state,
+    forced,
+  )
+}
+
+/** Records why the pack in use leaves the rig, with a closing chart point at its last state. */
+export function closePackRun(run: RunState, endReason: PackEndReason): void {
+  const at = run.at
+  keepPoint(
+    run,
+    at.lastVoltageV,
+    at.lastDrawW,
+    at.lastSupplyV,
+    at.lastState,
+    at.lastHeadroomPeakW,
+    'forced',
+  )
+  run.packRuns.push({
+    pack: at.pack,
+    startMinute: at.packStartS / 60,
+    endMinute: at.elapsedS / 60,
+    endReason,
+    musicMinutes: at.packMusicS / 60,
+    lowestSocPct: at.packLowestSoc * 100,
+  })
+}
+
+/** The next pack, full, goes into the rig. */
+export function swapIn(run: RunState): void {
+  const at = run.at
+  at.pack++
+  at.chargeAs = 0
+  at.soc = 1
+  at.packStartS = at.elapsedS
+  at.packMusicS = 0
+  at.packLowestSoc = 1
+  at.supplyGuessV = run.fullOpenCircuitV
+  run.swaps.push({ atMinute: at.elapsedS / 60, pack: at.pack })
+  at.forceNextSample = true
+}
+
+/** Records where segment `index` ended, once: the first call for it wins. */
+export function endSegment(run: RunState, index: number): void {
+  if (run.segmentEnds.length !== index) return
+  run.segmentEnds.push({
+    deliveredJ: run.totals.deliveredJ,
+    chemicalJ: run.totals.chemicalJ,
+    chargedJ: run.totals.chargedJ,
+    elapsedS: run.at.elapsedS,
+    pack: run.at.pack,
+  })
+}
+
+/**
+ * The run as it stands, ended for `stopReason`. A `snapshot` (the prefix outcome of
+ * RunOptions.prefixPacks) copies the lists the run goes on writing, and has no timeline.
+ */
+export function outcomeOf(run: RunState, stopReason: StopReason, snapshot: boolean): RunOutcome {
+  return {
+    ...run.totals,
+    stopReason,
+    elapsedS: run.at.elapsedS,
+    packsUsed: run.at.pack,
+    endSoc: run.at.soc,
+    segmentEnds: snapshot ? run.segmentEnds.slice() : run.segmentEnds,
+    swaps: snapshot ? run.swaps.slice() : run.swaps,
+    packRuns: snapshot ? run.packRuns.slice() : run.packRuns,
+    timeline: snapshot ? null : run.timeline,
+    prefix: snapshot ? null : run.prefix,
+  }
 }

@@ -1,17 +1,26 @@
 // The time-stepped run (docs/model.md §7): each step, draw → current → terminal voltage → charge
 // removed → state of charge, over the schedule's segments, with swaps between packs on hand.
-// This file is the run's public face: its options and outcome, and runRig; the steps are in
-// run-segments.ts, the run's state and records in run-state.ts, the draw in operating-point.ts.
+// This file is the run's public face: its options and outcome, and runRig. The steps and what
+// they write down are in run-segments.ts, the run's state in run-state.ts, and the draw and the
+// stop test in operating-point.ts.
 import type { StopReason, SwapPolicy } from '../schemas/estimate'
 import type { RigLoads, RunSegment } from './operating-point'
-import { endSegment, closePackRun, outcomeOf, startRun } from './run-state'
-import { chargeThrough, powerThrough, restThrough, swapAtBreakIfLow } from './run-segments'
+import { startRun } from './run-state'
+import {
+  chargeThrough,
+  closePackRun,
+  endSegment,
+  outcomeOf,
+  powerThrough,
+  restThrough,
+  swapAtBreakIfLow,
+} from './run-segments'
 import type { TimelineRecorder } from './timeline'
 
 // The engine's other parts (estimate, peaks, dropout, reserve) reach the run through this file.
 export type { OperatingPoint, RigLoads, RunSegment } from './operating-point'
 export { emptyOperatingPoint, solveOperatingPoint } from './operating-point'
-export { MAX_STEP_S } from './run-state'
+export { MAX_STEP_S } from './run-segments'
 
 export const OPEN_RUN_LIMIT_MINUTES = 7 * 24 * 60 // ours: a run without a schedule stops at 7 days
 
