@@ -45,7 +45,7 @@ export function buildPack(inputs: PackInputs, temperatureC: number): PackModel {
   const ratedCapacityAh = inputs.parallelCells * inputs.cellCapacityAh
   const table = new Float64Array(OCV_SAMPLES_PER_UNIT + 1)
   for (let i = 0; i <= OCV_SAMPLES_PER_UNIT; i++) {
-    table[i] = inputs.seriesCells * interpolate(data.ocvRows, (100 * i) / OCV_SAMPLES_PER_UNIT)
+    table[i] = packOpenCircuitVAt(inputs, (100 * i) / OCV_SAMPLES_PER_UNIT)
   }
   return {
     chemistry: inputs.chemistry,
@@ -83,7 +83,18 @@ export function ageingResistanceFactor(healthPct: number): number {
   return 1 + lostPct / (100 - HEALTH_AT_DOUBLED_RESISTANCE_PCT)
 }
 
-/** Pack open-circuit voltage at a state of charge given as a fraction 0..1. */
+/**
+ * Pack open-circuit voltage at a state of charge in percent, from the chemistry's rows
+ * (docs/model.md §1, "Open-circuit voltage"): cells in series times the resting cell voltage.
+ */
+export function packOpenCircuitVAt(
+  pack: { chemistry: Chemistry; seriesCells: number },
+  socPct: number,
+): number {
+  return pack.seriesCells * interpolate(CHEMISTRY_DATA[pack.chemistry].ocvRows, socPct)
+}
+
+/** Pack open-circuit voltage at a state of charge given as a fraction 0..1 (from the table). */
 export function packOpenCircuitV(pack: PackModel, socFraction: number): number {
   const position = Math.min(Math.max(socFraction, 0), 1) * OCV_SAMPLES_PER_UNIT
   const index = Math.min(Math.floor(position), OCV_SAMPLES_PER_UNIT - 1)

@@ -1,6 +1,6 @@
 // The pool's state of charge over the day: every pack on hand, wherever it is (in a rig, in the
 // box, queued or on a charger), as the share of their full charge in watt-hours.
-import { socAfterChargingPct, type ChargeablePack } from './charge'
+import { socAfterChargingPct, type ChargeablePack } from '../engine/charging'
 import type { PoolCharger, PoolOutcome } from './pool'
 import type { EventPoolPoint } from '../schemas/events'
 

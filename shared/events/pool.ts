@@ -1,7 +1,7 @@
 // The event's box of packs and the venue's chargers as discrete events in time order: a rig takes
 // a charged pack of its kind at each turn; the pack it gives back waits for a free charger slot
-// that fits its kind, charges to full (charge.ts) and goes back into the box.
-import { chargeHoursToFull, type ChargeablePack } from './charge'
+// that fits its kind, charges to full (engine/charging.ts) and goes back into the box.
+import { chargeHoursToFull, type ChargeablePack } from '../engine/charging'
 
 /** Minutes are on the event clock: after midnight of the event's day. */
 export interface PoolTurn {

@@ -14,7 +14,7 @@ import type {
   EventRigAnswer,
   EventSummary,
 } from '../schemas/events'
-import type { ChargeablePack } from './charge'
+import type { ChargeablePack } from '../engine/charging'
 import { packKindOf, type PackKind } from './pack-kinds'
 import { simulatePool, type PoolCharger, type PoolDemand, type PoolOutcome } from './pool'
 import { poolChargeSeries } from './pool-charge'

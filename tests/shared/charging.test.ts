@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest'
-import { chargeAh, powerIntoPackW } from '../../shared/engine/charging'
+import { chargeAh, chargingCurrentA, powerIntoPackW } from '../../shared/engine/charging'
 import { estimate } from '../../shared/engine/estimate'
 import { estimateResultSchema } from '../../shared/schemas/estimate'
 import type { EstimateRequestInput } from '../../shared/schemas/estimate'
@@ -16,6 +16,12 @@ function dayWithBreak(chargeW: number, breakMinutes: number, count = 1) {
 }
 
 describe('charging during the day', () => {
+  it('turns 51 W into 2.76 A at 18.5 V and 1.38 A at 37 V', () => {
+    // Source: definition of electric power, P = V·I, so I = P / V
+    expect(chargingCurrentA(51, 18.5)).toBeCloseTo(2.757, 3)
+    expect(chargingCurrentA(51, 37)).toBeCloseTo(1.378, 3)
+  })
+
   it('puts P·t/V into a pack: 51 W for an hour at 18.5 V is 2.76 Ah', () => {
     // Source: definitions of power and charge, P = V·I and Q = I·t
     expect(chargeAh(51, 18.5, 60, 10)).toBeCloseTo(51 / 18.5, 12)

@@ -6,7 +6,7 @@ import {
   chargeHoursToFull,
   socAfterChargingPct,
   type ChargeablePack,
-} from '../../shared/events/charge'
+} from '../../shared/engine/charging'
 import { simulatePool, type PoolDemand } from '../../shared/events/pool'
 import { runEvent, type EventPlanInput } from '../../shared/events/run-event'
 import { packKindKey } from '../../shared/events/pack-kinds'
