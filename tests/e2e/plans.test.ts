@@ -132,7 +132,13 @@ describe('event plans', () => {
     await table.scrollIntoViewIfNeeded()
     await table.getByRole('row').nth(2).waitFor()
     const headers = await table.locator('th').allTextContents()
-    for (const heading of ['Pack', 'Lasts', 'Packs needed', 'Wh per kg', 'Air travel']) {
+    for (const heading of [
+      'Pack',
+      'Lasts',
+      'Packs needed',
+      'Energy per mass (Wh/kg)',
+      'Air travel',
+    ]) {
       expect(headers.join('|')).toContain(heading)
     }
     await app.browser.screenshot('plan-compare')

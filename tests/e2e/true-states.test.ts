@@ -139,7 +139,7 @@ describe('states that are true', () => {
     const kg = Number(await massCell.innerText())
     await page.getByRole('radio', { name: 'Imperial' }).check({ force: true })
     try {
-      await teamPacks.getByRole('columnheader', { name: 'Mass (lb)' }).waitFor()
+      await teamPacks.getByRole('columnheader', { name: 'Mass per pack (lb)' }).waitFor()
       // Source: 1 lb = 0.45359237 kg exactly (international yard and pound agreement, 1959).
       expect(Number(await massCell.innerText())).toBeCloseTo(kg / 0.45359237, 2)
 
