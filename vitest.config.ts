@@ -9,6 +9,9 @@ import viteConfig from './vite.config.ts'
 // pure, and every API test builds its own app and database, so nothing leaks between files. The
 // component tests mock modules per file (`vi.mock`), so they keep a fresh graph per file.
 const processStateTests = ['tests/server/operations.test.ts', 'tests/server/upload-limits.test.ts']
+// API tests that replace a module with `vi.mock` (to count the engine's runs): in the shared
+// module graph the real module is already loaded, so they need a graph of their own.
+const moduleMockTests = ['tests/server/event-summaries.test.ts']
 
 export default mergeConfig(
   viteConfig,
@@ -30,7 +33,7 @@ export default mergeConfig(
           test: {
             name: 'server',
             include: ['tests/server/**/*.test.ts'],
-            exclude: processStateTests,
+            exclude: [...processStateTests, ...moduleMockTests],
             environment: 'node',
             pool: 'threads',
             isolate: false,
@@ -41,11 +44,12 @@ export default mergeConfig(
         },
         {
           // Tests of the process itself (its umask, its worker threads and sockets under load)
-          // run in a forked process of their own: a worker thread cannot set the umask.
+          // run in a forked process of their own: a worker thread cannot set the umask. The
+          // module-mocking API tests run here too, each file with a module graph of its own.
           extends: true,
           test: {
             name: 'server-process',
-            include: processStateTests,
+            include: [...processStateTests, ...moduleMockTests],
             environment: 'node',
             pool: 'forks',
             testTimeout: 20_000,

@@ -22,7 +22,8 @@ const sessionSecret = resolveSessionSecret(dataDir, env.SESSION_SECRET)
 const database = openDatabase(join(dataDir, 'loudhour.db'))
 runMigrations(database)
 const migrations = migrationStatus(database)
-// Stored rig and plan summaries follow the engine: recomputed when its version changed.
+// Stored rig, plan and event summaries follow the engine: recomputed when its version changed
+// (and an event's when it has none yet, saved before events stored one).
 const recomputed = recomputeSummaries(database)
 
 const mail = createMailer({
@@ -45,9 +46,9 @@ const server = app.listen(env.PORT, env.HOST, (error?: Error) => {
   }
   console.log(`Loudhour is running at ${env.PUBLIC_URL}`)
   console.log(`  data: ${dataDir} (migrations applied: ${migrations.applied})`)
-  if (recomputed && (recomputed.rigs > 0 || recomputed.plans > 0)) {
+  if (recomputed) {
     console.log(
-      `  engine ${recomputed.toVersion}: recomputed ${recomputed.rigs} rig and ${recomputed.plans} plan summaries (${recomputed.invalid} no longer valid)`,
+      `  engine ${recomputed.toVersion}: recomputed ${recomputed.rigs} rig, ${recomputed.plans} plan and ${recomputed.events} event summaries (${recomputed.invalid} no longer valid)`,
     )
   }
   if (mailCatcherPort !== undefined) {

@@ -1,6 +1,6 @@
 import { sql } from 'drizzle-orm'
 import { check, index, integer, primaryKey, sqliteTable, text } from 'drizzle-orm/sqlite-core'
-import type { EventCharger, EventPoolEntry } from '../../shared/schemas/events'
+import type { EventCharger, EventPoolEntry, EventSummary } from '../../shared/schemas/events'
 import { users } from './schema'
 import { ownedItemColumns, plans } from './schema-resources'
 
@@ -15,6 +15,12 @@ export const events = sqliteTable(
     date: text('date').notNull(),
     pool: text('pool', { mode: 'json' }).$type<EventPoolEntry[]>().notNull(),
     chargers: text('chargers', { mode: 'json' }).$type<EventCharger[]>().notNull(),
+    /**
+     * What the list shows, worked out at every save of the event, of one of its plans or of their
+     * rigs, and again at start when the engine's version changed; null only until then.
+     */
+    summary: text('summary', { mode: 'json' }).$type<EventSummary>(),
+    summaryEngineVersion: text('summary_engine_version'),
   },
   (table) => [
     index('events_team_name_idx').on(table.teamId, table.name),

@@ -7,6 +7,7 @@ import {
   replaceEventPlans,
   type EventRow,
 } from '../events/event-plans'
+import { storeEventSummary } from '../events/event-summaries'
 import { ownedRowsOf } from './owned-table'
 import type { ResourceDefinition } from './resource-definition'
 import { eventSummary } from '../../shared/events/run-event'
@@ -15,6 +16,7 @@ import {
   eventUpdateSchema,
   type EventBody,
   type EventItem,
+  type EventListItem,
 } from '../../shared/schemas/events'
 
 function bodyOf(tx: Queryable, row: EventRow): EventBody {
@@ -28,8 +30,16 @@ function bodyOf(tx: Queryable, row: EventRow): EventBody {
   }
 }
 
-/** Events: `/api/v1/teams/:teamId/events`. The answer is computed from the plans when read. */
-export const eventDefinition: ResourceDefinition<typeof events, EventBody, EventItem> = {
+/**
+ * Events: `/api/v1/teams/:teamId/events`. One event's answer is worked out from its plans when
+ * read; the list shows the summary stored at the last save (server/events/event-summaries.ts).
+ */
+export const eventDefinition: ResourceDefinition<
+  typeof events,
+  EventBody,
+  EventItem,
+  EventListItem
+> = {
   rows: ownedRowsOf(events),
   noun: 'event',
   idParam: 'eventId',
@@ -42,7 +52,10 @@ export const eventDefinition: ResourceDefinition<typeof events, EventBody, Event
     chargers: body.chargers,
   }),
   checkBody: ({ tx, teamId }, body) => checkEventPlans(tx, teamId, body.planIds),
-  afterWrite: ({ tx }, eventId, body) => replaceEventPlans(tx, eventId, body.planIds),
+  afterWrite: ({ tx, teamId }, eventId, body) => {
+    replaceEventPlans(tx, eventId, body.planIds)
+    storeEventSummary(tx, { id: eventId, teamId, pool: body.pool, chargers: body.chargers })
+  },
   bodyOf,
   toItem: (tx, row, meta) => {
     const body = bodyOf(tx, row)
@@ -57,4 +70,12 @@ export const eventDefinition: ResourceDefinition<typeof events, EventBody, Event
       answer,
     }
   },
+  toListItem: (tx, row, meta) => ({
+    ...meta,
+    date: row.date,
+    planIds: eventPlanIds(tx, row.id),
+    pool: row.pool,
+    chargers: row.chargers,
+    summary: row.summary ?? null,
+  }),
 }

@@ -3,6 +3,7 @@ import type { Queryable } from '../db/queryable'
 import { plans, rigs } from '../db/schema-resources'
 import { ApiError, issuesFromZod } from '../http/errors'
 import { eventsUsingPlan } from '../events/event-plans'
+import { recomputeEventsOfPlans } from '../events/event-summaries'
 import { ownedRowsOf } from './owned-table'
 import { summarisePlan } from './summaries'
 import type { ResourceDefinition, WriteScope } from './resource-definition'
@@ -64,11 +65,13 @@ function writeSummary(tx: Queryable, planId: number, request: EstimateRequest, s
 
 /**
  * A rig's plans run on its spec: when the rig is saved, their summaries are recomputed in the
- * same transaction (their versions stay: nobody edited the plans). A plan that no longer
- * validates with the new spec keeps its fields and loses its summary.
+ * same transaction (their versions stay: nobody edited the plans), and so are the summaries of
+ * the events they are part of. A plan that no longer validates with the new spec keeps its
+ * fields and loses its summary (its events say it needs attention).
  */
 export function recomputePlansOfRig(tx: Queryable, rigId: number, rigSpec: EstimateRequest): void {
-  for (const plan of tx.select().from(plans).where(eq(plans.rigId, rigId)).all()) {
+  const rigPlans = tx.select().from(plans).where(eq(plans.rigId, rigId)).all()
+  for (const plan of rigPlans) {
     const parsed = estimateRequestSchema.safeParse(planEstimateRequest(rigSpec, plan))
     if (parsed.success) {
       writeSummary(tx, plan.id, parsed.data, plan.startTime)
@@ -79,6 +82,10 @@ export function recomputePlansOfRig(tx: Queryable, rigId: number, rigSpec: Estim
         .run()
     }
   }
+  recomputeEventsOfPlans(
+    tx,
+    rigPlans.map((plan) => plan.id),
+  )
 }
 
 function rigNameOf(tx: Queryable, rigId: number): string {
@@ -105,6 +112,7 @@ export const planDefinition: ResourceDefinition<typeof plans, PlanBody, PlanItem
   },
   afterWrite: ({ tx, teamId }, planId, body) => {
     writeSummary(tx, planId, planRequest(tx, teamId, body), body.startTime)
+    recomputeEventsOfPlans(tx, [planId])
   },
   // A plan in an event is refused rather than dropped: the event's answer would change unseen.
   beforeDelete: ({ tx }, row) => {

@@ -33,6 +33,7 @@ export interface ResourceDefinition<
   Table extends OwnedTable,
   Body extends ItemBody,
   Item extends SavedItemMeta,
+  ListItem extends SavedItemMeta = Item,
 > {
   /** Reads and writes of the resource's own table (`ownedRowsOf(table)`). */
   rows: OwnedRows<Table>
@@ -47,6 +48,8 @@ export interface ResourceDefinition<
   /** The body that would recreate the row: duplicates go through create with it. */
   bodyOf(tx: Queryable, row: Table['$inferSelect']): Record<string, unknown>
   toItem(tx: Queryable, row: Table['$inferSelect'], meta: SavedItemMeta): Item
+  /** A row of the list, when it shows less than the item (what is stored, nothing worked out). */
+  toListItem?(tx: Queryable, row: Table['$inferSelect'], meta: SavedItemMeta): ListItem
   /** Checks inside the write transaction (references to other rows); throw ApiError to refuse. */
   checkBody?(scope: WriteScope, body: Body): void
   /** Writes beside the row, e.g. link tables, after insert or update. */

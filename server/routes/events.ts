@@ -24,8 +24,9 @@ export function eventsRouter(context: ResourceContext): Router {
     const body = parseInput(eventPreviewSchema, req.body)
     res.json(answerFor(context.db, teamMembership(req).teamId, body))
   })
-  // Every read of an event works its answer out again (it follows its plans and rigs), so reads
-  // are limited per account too; ours: generous for people, a wall for a script.
+  // Reads are limited per account; ours: generous for people, a wall for a script. One event
+  // read works its answer out again (it follows its plans and rigs); the list reads stored
+  // summaries and runs no engine, so for the list the limit is only flood protection.
   const readThrottle = throttle({
     name: 'event_reads',
     windowMs: minuteMs,

@@ -25,7 +25,7 @@ import {
 /*
  * The one way to serve a team-owned, versioned resource (docs/api.md, "The team's parts, rigs and plans"):
  *
- *   GET    /            viewer  ?limit&offset&sort&q → { items, total }
+ *   GET    /            viewer  ?limit&offset&sort&q → { items, total } (list items)
  *   POST   /            editor  → 201 item
  *   GET    /:id         viewer  → item                       (:id is e.g. :packId)
  *   PUT    /:id         editor  body + version → item (409 when the version is stale)
@@ -44,7 +44,8 @@ export function teamResourceRouter<
   Table extends OwnedTable,
   Body extends ItemBody,
   Item extends SavedItemMeta,
->(context: ResourceContext, definition: ResourceDefinition<Table, Body, Item>): Router {
+  ListItem extends SavedItemMeta,
+>(context: ResourceContext, definition: ResourceDefinition<Table, Body, Item, ListItem>): Router {
   const { db, clock } = context
   const { rows, noun, idParam: idName } = definition
   const { table } = rows
@@ -60,9 +61,15 @@ export function teamResourceRouter<
     return row
   }
 
-  function present(tx: Queryable, found: Row[]): Item[] {
+  /** The list's rows: the resource's list form where it has one (events: stored, not worked out). */
+  function presentList(tx: Queryable, found: Row[]): SavedItemMeta[] {
     const people = peopleOf(tx, found)
-    return found.map((row) => definition.toItem(tx, row, itemMeta(row, people)))
+    return found.map((row) => {
+      const meta = itemMeta(row, people)
+      return definition.toListItem
+        ? definition.toListItem(tx, row, meta)
+        : definition.toItem(tx, row, meta)
+    })
   }
 
   function presentOne(tx: Queryable, row: Row): Item {
@@ -81,7 +88,7 @@ export function teamResourceRouter<
     return [sort?.startsWith('-') ? desc(column) : asc(column), asc(table.id)]
   }
 
-  function list(teamId: number, query: ListQuery): ListResponse<Item> {
+  function list(teamId: number, query: ListQuery): ListResponse<SavedItemMeta> {
     const conditions = [eq(table.teamId, teamId)]
     if (query.q) conditions.push(sql`${table.name} like ${likePattern(query.q)} escape '\\'`)
     const where = and(...conditions)
@@ -91,7 +98,7 @@ export function teamResourceRouter<
       limit: query.limit,
       offset: query.offset,
     })
-    return { items: present(db, found), total: rows.count(db, where) }
+    return { items: presentList(db, found), total: rows.count(db, where) }
   }
 
   /** The team, the signed-in user and the time of a write request. */

@@ -196,11 +196,18 @@ export interface EventSummary {
   worstSeverity: (typeof SEVERITIES)[number] | null
 }
 
-export interface EventItem extends SavedItemMeta {
+/** A row of the events list: the summary stored at the last save, and no answer. */
+export interface EventListItem extends SavedItemMeta {
   date: string
   planIds: number[]
   pool: EventPoolEntry[]
   chargers: EventCharger[]
+  /** Null only for an event saved before summaries were stored, until the server's next start. */
+  summary: EventSummary | null
+}
+
+/** One event as read on its own: its answer worked out from the plans as saved now. */
+export interface EventItem extends EventListItem {
   summary: EventSummary
   answer: EventAnswer
 }

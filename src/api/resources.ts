@@ -23,8 +23,9 @@ export type ResourceCollection =
 /** A body as the client sends it: the server fills in what its schema defaults. */
 type Sendable<Body> = Omit<Body, 'label'>
 
-export interface ResourceApi<Item, Body> {
-  list(teamId: number, query?: Partial<ListQuery>): Promise<ListResponse<Item>>
+/** `ListItem`: what a list row holds, when the list shows less than one item (events). */
+export interface ResourceApi<Item, Body, ListItem = Item> {
+  list(teamId: number, query?: Partial<ListQuery>): Promise<ListResponse<ListItem>>
   get(teamId: number, id: number): Promise<Item>
   create(teamId: number, body: Sendable<Body>): Promise<Item>
   /** Sends the version the edit started from; a stale one answers 409 (`stale-version`). */
@@ -34,11 +35,13 @@ export interface ResourceApi<Item, Body> {
   duplicate(teamId: number, id: number): Promise<Item>
 }
 
-export function resourceApi<Item, Body>(collection: ResourceCollection): ResourceApi<Item, Body> {
+export function resourceApi<Item, Body, ListItem = Item>(
+  collection: ResourceCollection,
+): ResourceApi<Item, Body, ListItem> {
   const base = (teamId: number) => `/v1/teams/${teamId}/${collection}`
   return {
     list: (teamId, query = {}) =>
-      apiRequest<ListResponse<Item>>(base(teamId), { query: { ...query } }),
+      apiRequest<ListResponse<ListItem>>(base(teamId), { query: { ...query } }),
     get: (teamId, id) => apiRequest<Item>(`${base(teamId)}/${id}`),
     create: (teamId, body) => apiRequest<Item>(base(teamId), { method: 'POST', body }),
     update: (teamId, id, body) =>

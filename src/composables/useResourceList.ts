@@ -13,12 +13,13 @@ const searchDelayMs = 250
  * (save, duplicate, delete), each followed by a reload. `loading`, `error` and `empty` are for
  * the view's states.
  */
-export function useResourceList<Item extends { id: number }, Body>(
-  api: ResourceApi<Item, Body>,
-  defaults: { sort: SortValue; pageSize?: number },
-) {
+export function useResourceList<
+  Item extends { id: number },
+  Body,
+  ListItem extends { id: number } = Item,
+>(api: ResourceApi<Item, Body, ListItem>, defaults: { sort: SortValue; pageSize?: number }) {
   const { teamId } = useTeamAccess()
-  const items = ref<Item[]>([]) as { value: Item[] }
+  const items = ref<ListItem[]>([]) as { value: ListItem[] }
   const total = ref(0)
   const loading = ref(false)
   const error = ref<string | undefined>()

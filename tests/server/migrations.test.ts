@@ -5,6 +5,8 @@ import { migrate } from 'drizzle-orm/better-sqlite3/migrator'
 import { afterEach, describe, expect, it } from 'vitest'
 import { openDatabase, type DatabaseHandle } from '../../server/db/client'
 import { migrationsFolder, migrationStatus, runMigrations } from '../../server/db/migrate'
+import { recomputeSummaries } from '../../server/db/recompute-summaries'
+import { seedPlanFixture } from '../helpers/plan-fixture'
 import { seedResourceFixture } from '../helpers/resource-fixture'
 
 // Migrations applied to databases that already hold data: the accounts first, then the parts,
@@ -181,6 +183,46 @@ describe('the mail privacy migration', () => {
     database.sqlite
       .prepare('insert into team_mail_sends (team_id, sent_at_ms) values (?, ?)')
       .run(teamId, nowMs)
+    expect(foreignKeyProblems(database)).toEqual([])
+  })
+})
+
+describe('the event summaries migration', () => {
+  it('adds the summary columns over saved events, and the next start fills them in', () => {
+    const database = freshDatabase()
+    migrate(database.db, { migrationsFolder: migrationsUpTo('0004_') })
+    const nowMs = Date.now()
+    const { userId, teamId } = insertCrew(database, nowMs)
+    const { planId } = seedPlanFixture(database.db, teamId, userId, nowMs)
+    // An event as the events release stored it: plain SQL naming only that release's columns.
+    const eventId = Number(
+      database.sqlite
+        .prepare(
+          'insert into events (team_id, name, date, pool, chargers, created_at_ms, updated_at_ms) values (?, ?, ?, ?, ?, ?, ?)',
+        )
+        .run(teamId, 'Sports day', '2026-06-13', '[]', '[]', nowMs, nowMs).lastInsertRowid,
+    )
+    database.sqlite
+      .prepare('insert into event_plans (event_id, plan_id, position) values (?, ?, 0)')
+      .run(eventId, Number(planId))
+
+    runMigrations(database)
+    const stored = () =>
+      database.sqlite
+        .prepare('select summary, summary_engine_version as version from events where id = ?')
+        .get(eventId) as { summary: string | null; version: string | null }
+    expect(stored()).toEqual({ summary: null, version: null })
+
+    // What the server does at start: an event with no summary gets one (a backfill).
+    expect(recomputeSummaries(database)?.events).toBe(1)
+    const after = stored()
+    expect(after.version).not.toBeNull()
+    // One plan in the event; the plan fixture's pack is 10 Li-ion cells in series, 2 in parallel,
+    // 2.5 Ah each (the kind is named by that build).
+    expect(JSON.parse(after.summary!)).toMatchObject({
+      rigCount: 1,
+      packsToBring: [{ kind: 'li-ion/10s2p/2.5ah', onHand: 0 }],
+    })
     expect(foreignKeyProblems(database)).toEqual([])
   })
 })
