@@ -266,6 +266,40 @@ describe('engine properties', { timeout: 30_000 }, () => {
     )
   })
 
+  it('gains nothing at a charging break outside the charge temperature range', () => {
+    // Source: makers' charge ranges (Samsung SDI ICR18650-26C specification: 0 to 45 °C; LiFePO4
+    // and NiMH from 0 °C too, from memory): outside them the pack takes no charge, so the break
+    // leaves it as a switched-off one would, and the day ends where it did without the charger
+    fc.assert(
+      fc.property(
+        requestArbitrary.filter(
+          (request) => request.schedule !== undefined && request.pack.chemistry !== 'lead-acid',
+        ),
+        fc.double({ min: 1, max: 300, noNaN: true }),
+        fc.constantFrom(-15, -0.5, 46, 60),
+        (request, chargeW, temperatureC) => {
+          const off = { ...request, temperatureC }
+          const charged = {
+            ...off,
+            schedule: off.schedule!.map((segment) =>
+              segment.state === 'off'
+                ? { ...segment, state: 'charging' as const, chargeW }
+                : segment,
+            ),
+          }
+          const plain = estimate(off)
+          const result = estimate(charged)
+          expect(result.runtimeHours).toBeCloseTo(plain.runtimeHours, 6)
+          expect(result.schedule!.endSocPct).toBeCloseTo(plain.schedule!.endSocPct, 6)
+          expect(result.warnings.map((warning) => warning.code)).toContain(
+            'charge-temperature-out-of-range',
+          )
+        },
+      ),
+      params,
+    )
+  })
+
   it('never raises the level with a longer speaker lead', () => {
     // Source: Ohm's law: more cable resistance in series with the load leaves the speakers a
     // smaller share, Z/(Z + R), of a smaller output
