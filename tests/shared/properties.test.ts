@@ -96,6 +96,16 @@ const requestArbitrary = fc
     })
   })
 
+/** The request with every switched-off segment turned into a charging break at `chargeW`. */
+function chargingInPlaceOfOff(request: EstimateRequest, chargeW: number): EstimateRequest {
+  return {
+    ...request,
+    schedule: request.schedule!.map((segment) =>
+      segment.state === 'off' ? { ...segment, state: 'charging' as const, chargeW } : segment,
+    ),
+  }
+}
+
 function allFinite(value: unknown): boolean {
   if (typeof value === 'number') return Number.isFinite(value)
   if (Array.isArray(value)) return value.every(allFinite)
@@ -247,14 +257,7 @@ describe('engine properties', { timeout: 30_000 }, () => {
         requestArbitrary.filter((request) => request.schedule !== undefined),
         fc.double({ min: 1, max: 300, noNaN: true }),
         (request, chargeW) => {
-          const charged = {
-            ...request,
-            schedule: request.schedule!.map((segment) =>
-              segment.state === 'off'
-                ? { ...segment, state: 'charging' as const, chargeW }
-                : segment,
-            ),
-          }
+          const charged = chargingInPlaceOfOff(request, chargeW)
           const plain = estimate(request)
           const result = estimate(charged)
           expect(allFinite(result)).toBe(true)
@@ -279,14 +282,7 @@ describe('engine properties', { timeout: 30_000 }, () => {
         fc.constantFrom(-15, -0.5, 46, 60),
         (request, chargeW, temperatureC) => {
           const off = { ...request, temperatureC }
-          const charged = {
-            ...off,
-            schedule: off.schedule!.map((segment) =>
-              segment.state === 'off'
-                ? { ...segment, state: 'charging' as const, chargeW }
-                : segment,
-            ),
-          }
+          const charged = chargingInPlaceOfOff(off, chargeW)
           const plain = estimate(off)
           const result = estimate(charged)
           expect(result.runtimeHours).toBeCloseTo(plain.runtimeHours, 6)
