@@ -176,4 +176,24 @@ describe('a charging break in the exports', () => {
     const unfolded = scheduleIcs(day).replace(/\r\n[ \t]/g, '')
     expect(unfolded).toContain('Car charger: 45 min\\, silent\\, pack on the charger at 40 W')
   })
+
+  it("says not to charge when the day is outside the pack's charge temperature range", () => {
+    // Source: common practice (makers' datasheets): never charge lithium below 0 °C; the plan's
+    // result then carries the warning charge-temperature-out-of-range
+    const day: ScheduleExport = {
+      ...plan,
+      schedule: [
+        { label: 'Morning', minutes: 120 },
+        { label: 'Car charger', minutes: 45, state: 'charging', chargeW: 40 },
+      ],
+      swaps: [],
+      chargingRefused: true,
+    }
+    const rows = Papa.parse<string[]>(scheduleCsv(day), { skipEmptyLines: true }).data
+    const charging = rows.find((row) => row[4]?.startsWith('Car charger'))
+    expect(charging?.[4]).toMatch(/do NOT charge the pack/)
+    expect(charging?.[4]).not.toMatch(/on the charger/)
+    const unfolded = scheduleIcs(day).replace(/\r\n[ \t]/g, '')
+    expect(unfolded).toContain('do NOT charge the pack')
+  })
 })
