@@ -2,6 +2,7 @@
 // chargers over the whole day (pool.ts), the fewest packs to bring, and the pool's charge.
 import { estimate } from '../engine/estimate'
 import { CHEMISTRY_DATA } from '../engine/chemistry'
+import { onEventClock } from '../engine/moment'
 import { DEFAULT_TEMPERATURE_C } from '../engine/resolve'
 import { ENGINE_VERSION } from '../engine/version'
 import { minutesAfterMidnight, clockLabel } from '../plans/clock'
@@ -194,9 +195,10 @@ export function runEvent(
 
   const rigs: EventRigAnswer[] = runs.map((run, index) => {
     const served = outcome.demands[index]!
+    // A danger's moment on the plan's clock ("at about 12:00"), as the plan's card says it.
     const dangers = run.result.warnings
       .filter((warning) => warning.severity === 'danger')
-      .map((warning) => warning.message)
+      .map((warning) => onEventClock(warning, (minute) => clockLabel(run.input.startTime, minute)))
     let worst: Severity | null = null
     for (const warning of run.result.warnings) {
       if (worst === null || severityRank[warning.severity] > severityRank[worst])

@@ -296,6 +296,23 @@ describe('the event answer (runEvent)', () => {
     expect(onMains([15, 15], 4).answer.sessions.length).toBeGreaterThan(0)
   })
 
+  it("names a plan's refused charging break on the plan's clock among the rig's dangers", () => {
+    // Source: common practice: never charge lithium below 0 °C. The plan starts at 08:00 and
+    // breaks to charge after 2 h of music, so the break is at 10:00.
+    const cold = smallPackMarketPlan({
+      temperatureC: -5,
+      schedule: [
+        { label: 'Music', minutes: 120, state: 'on' },
+        { label: 'Car charger', minutes: 60, state: 'charging', chargeW: 40 },
+        { label: 'Music', minutes: 120, state: 'on' },
+      ],
+    })
+    const answer = runEvent([cold], { pool: [{ kind, count: 6 }], chargers: [] })
+    const rig = answer.rigs[0]!
+    expect(rig.lasts).toBe(false)
+    expect(rig.dangers.join(' ')).toMatch(/The charging break at about 10:00 gives it no charge/)
+  })
+
   it('charges lithium packs at exactly 0 °C: the datasheet range includes its ends', () => {
     // Source: Samsung SDI ICR18650-26C specification, charge 0 to 45 °C
     const { answer, caution } = onMains([0], 2)
