@@ -1,6 +1,8 @@
 // The one function that turns a plan (or a rig alone) and its engine result into the runtime
 // card. The web card, the shared page and the e-mail all show what this returns.
+import { chargingPermitted } from '../engine/charging'
 import { packsNeededForSchedule } from '../engine/compare'
+import { DEFAULT_TEMPERATURE_C } from '../engine/resolve'
 import { onEventClock } from '../engine/moment'
 import { clockLabel } from '../plans/clock'
 import type { EstimateRequest, EstimateResult, ScheduleSegment } from '../schemas/estimate'
@@ -63,6 +65,11 @@ function activityOf(segment: ScheduleSegment, request: EstimateRequest): string 
   if (state === 'off') return 'Rig switched off'
   if (state === 'idle') return 'Rig on, no music'
   if (state === 'charging') {
+    // The engine gives the pack nothing here outside its charge range: the crew must not either.
+    const temperatureC = request.temperatureC ?? DEFAULT_TEMPERATURE_C
+    if (!chargingPermitted(request.pack.chemistry, temperatureC)) {
+      return `Rig silent; do NOT charge its pack at ${temperatureWords(temperatureC)} (see the warnings)`
+    }
     const power = segment.chargeW === undefined ? '' : ` (${figure(segment.chargeW, 0)} W into it)`
     return `Rig silent; its pack on the charger${power}`
   }

@@ -27,8 +27,11 @@ function hearing(request: EstimateRequest, result: EstimateResult): CardCaution 
 
 function battery(request: EstimateRequest): CardCaution {
   const chemistry = request.pack.chemistry
+  // The pack's own charge range (chemistry.ts, from makers' datasheets), where it has one.
+  const range = CHEMISTRY_DATA[chemistry].chargeTemperatureC
+  const within = range ? ` between ${range.minC} and ${range.maxC} °C,` : ''
   const charging = (request.schedule ?? []).some((segment) => segment.state === 'charging')
-    ? " Charging at a break: only with the maker's charger, on a hard non-flammable surface, in sight, and never a damaged, hot or cold pack."
+    ? ` Charging at a break: only${within} with the maker's charger, on a hard non-flammable surface, in sight, and never a damaged, hot or cold pack.`
     : ''
   const rating =
     (request.pack.maxDischargeA === undefined

@@ -1,9 +1,19 @@
 // Charging a pack from a charger's power (docs/model.md §12, docs/events.md "Charging"): a pack
 // in the rig at a charging break in the run (run-segments.ts, chargeThrough) and a pack on an
 // event's charger (shared/events: how long to full, and the charge on the way). One conversion,
-// I = P / OCV, and one open-circuit curve (pack.ts) serve both.
-import type { Chemistry } from './chemistry'
+// I = P / OCV, one open-circuit curve (pack.ts) and one charge temperature range serve both.
+import { CHEMISTRY_DATA, type Chemistry } from './chemistry'
 import { packOpenCircuitVAt } from './pack'
+
+/**
+ * Whether a pack of `chemistry` at `temperatureC` may be charged: inside its maker's charge
+ * range, both ends allowed (chemistry.ts, chargeTemperatureC). Outside it a charger must give the
+ * pack nothing: lithium charged below 0 °C plates lithium on the anode, a fire risk later.
+ */
+export function chargingPermitted(chemistry: Chemistry, temperatureC: number): boolean {
+  const range = CHEMISTRY_DATA[chemistry].chargeTemperatureC
+  return range === null || (temperatureC >= range.minC && temperatureC <= range.maxC)
+}
 
 /**
  * Current that `chargeW` (power into the pack, after the charger) gives a pack resting at

@@ -34,6 +34,12 @@ export interface ChemistryData {
   /** [°C, capacity factor], [°C, resistance factor], both 1 at 25 °C. */
   capacityFactorRows: readonly (readonly [number, number])[]
   resistanceFactorRows: readonly (readonly [number, number])[]
+  /**
+   * The pack's temperature (°C) in which it may be charged, both ends allowed; null where the
+   * chemistry charges across the engine's whole temperature range. Narrower than the discharge
+   * range: charging is refused outside it (charging.ts, chargingPermitted).
+   */
+  chargeTemperatureC: { minC: number; maxC: number } | null
   isLithium: boolean
 }
 
@@ -88,6 +94,11 @@ export const CHEMISTRY_DATA: Record<Chemistry, ChemistryData> = {
       [45, 0.85],
       [60, 0.8],
     ],
+    // Makers' datasheets: Samsung SDI ICR18650-26C specification, charge 0 to 45 °C (discharge
+    // −10 to 60 °C); Panasonic NCR18650B charge 0 to +45 °C, discharge −20 to +60 °C (from
+    // memory); Samsung SDI INR18650-25R charge 0 to 50 °C (from memory). Common practice: never
+    // charge lithium below 0 °C (lithium plates on the anode). The lower top, 45 °C, errs safe.
+    chargeTemperatureC: { minC: 0, maxC: 45 },
     isLithium: true,
   },
   lifepo4: {
@@ -137,6 +148,10 @@ export const CHEMISTRY_DATA: Record<Chemistry, ChemistryData> = {
       [45, 0.85],
       [60, 0.8],
     ],
+    // Makers' datasheets (from memory): A123 ANR26650M1-B and other LiFePO4 26650 cells charge
+    // 0 to 55 °C; packs' BMS boards commonly stop charging at 45 °C (common practice), and a pack
+    // warms as it charges, so 45 °C errs to the safe side. Below 0 °C: never (common practice).
+    chargeTemperatureC: { minC: 0, maxC: 45 },
     isLithium: true,
   },
   'lead-acid': {
@@ -177,6 +192,9 @@ export const CHEMISTRY_DATA: Record<Chemistry, ChemistryData> = {
       [40, 0.9],
       [60, 0.85],
     ],
+    // Common practice: lead-acid may be charged below 0 °C with a temperature-compensated charge
+    // voltage (a good charger does this), so no range is applied here.
+    chargeTemperatureC: null,
     isLithium: false,
   },
   nimh: {
@@ -220,6 +238,9 @@ export const CHEMISTRY_DATA: Record<Chemistry, ChemistryData> = {
       [45, 0.9],
       [60, 0.9],
     ],
+    // from memory: NiMH makers give about 0 to 45 °C for a standard charge (fast charge 10 to
+    // 45 °C); outside it the cell takes charge poorly and heats.
+    chargeTemperatureC: { minC: 0, maxC: 45 },
     isLithium: false,
   },
 }

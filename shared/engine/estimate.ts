@@ -8,6 +8,7 @@ import {
   outputResistanceOhm,
   ratingExcessDb,
 } from './amplifier'
+import { chargingPermitted } from './charging'
 import { accessoryLoad } from './converters'
 import { leadResistanceOhm } from './leads'
 import type { PackModel } from './pack'
@@ -108,6 +109,9 @@ export function prepareRig(request: EstimateRequest): PreparedRig {
   // output stays put while the pack sags and the headroom shrinks (docs/model.md §4, §7).
   const referenceClipW = amplifier.clipPowerPerV2 * packOpenCircuitV(pack, 1) ** 2
   const programmePeakW = peakPowerW(referenceClipW, resolved.programme.peakBelowClipDb)
+  // Outside its charge temperature range the pack takes nothing at a charging break (charging.ts):
+  // the rig stays silent and the result says why (warning 'charge-temperature-out-of-range').
+  const chargeAllowed = chargingPermitted(pack.chemistry, temperatureC)
   const toRunSegment = (segment: ResolvedSegment): RunSegment => ({
     label: segment.label,
     state: segment.state,
@@ -123,7 +127,7 @@ export function prepareRig(request: EstimateRequest): PreparedRig {
     meanToRms: meanToRmsRatio(segment.crestFactorDb),
     headroomPeakW:
       segment.state === 'on' ? peakPowerW(referenceClipW, segment.peakBelowClipDb) : programmePeakW,
-    chargeW: segment.chargeW,
+    chargeW: chargeAllowed ? segment.chargeW : 0,
   })
   const programmeSegment = toRunSegment({
     label: 'programme',

@@ -1,6 +1,7 @@
 // The warnings of a result: the facts the checks read, taken from the run and its figures, and
 // the reserve at the end of the day after them.
 import type { EstimateWarning } from '../schemas/estimate'
+import { chargingPermitted } from './charging'
 import { capacityTemperatureFactor } from './chemistry'
 import type { PreparedRig } from './estimate'
 import { reserveShortfall, reserveWarning } from './reserve'
@@ -61,9 +62,30 @@ function warningFacts(
           totalMinutes: schedule.totalMinutes,
         }
       : null,
+    refusedCharging: refusedCharging(prepared),
     outputResistanceClamped: prepared.outputResistanceClamped,
     abEfficiencyGiven: amplifier.ampClass === 'ab' && resolved.amplifier.efficiencyGiven,
     nominalWh: figures.nominalPackWh,
     airlineClass: figures.airlineClass,
   }
+}
+
+/**
+ * The charging breaks with power into the pack at which it may not charge at the day's
+ * temperature (prepareRig gives them no power): how many, and where the first begins.
+ */
+function refusedCharging(prepared: PreparedRig): WarningFacts['refusedCharging'] {
+  const { resolved } = prepared
+  if (chargingPermitted(prepared.pack.chemistry, resolved.temperatureC)) return null
+  let breaks = 0
+  let firstAtMinute = 0
+  let startMinute = 0
+  for (const segment of resolved.schedule ?? []) {
+    if (segment.state === 'charging' && segment.chargeW > 0) {
+      if (breaks === 0) firstAtMinute = startMinute
+      breaks++
+    }
+    startMinute += segment.minutes
+  }
+  return breaks === 0 ? null : { breaks, firstAtMinute }
 }

@@ -106,6 +106,11 @@ export const WARNING_CATALOGUE = {
     severity: 'danger',
     meaning: 'The packs on hand do not last the schedule.',
   },
+  'charge-temperature-out-of-range': {
+    severity: 'danger',
+    meaning:
+      "A charging break falls outside the pack's charge temperature range: the pack takes no charge there.",
+  },
   'reserve-low': {
     severity: 'caution',
     meaning: 'The day lasts but ends below 20 % in the last pack, with no spare left.',

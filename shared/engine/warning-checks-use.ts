@@ -29,6 +29,33 @@ export function scheduleShortWarnings(facts: WarningFacts): EstimateWarning[] {
   ]
 }
 
+/**
+ * Charging breaks at a temperature outside the pack's charge range (chemistry.ts,
+ * chargeTemperatureC): the run gives the pack nothing there, so the figures count no charge from
+ * them; the message says why and what to change instead.
+ */
+export function chargeTemperatureWarnings(facts: WarningFacts): EstimateWarning[] {
+  const refused = facts.refusedCharging
+  const range = CHEMISTRY_DATA[facts.chemistry].chargeTemperatureC
+  if (!refused || !range) return []
+  const temperatureC = fixed(facts.temperatureC, 0)
+  const breaks =
+    refused.breaks === 1
+      ? `The charging break ${runMomentPhrase(refused.firstAtMinute)} gives`
+      : `The ${refused.breaks} charging breaks (the first ${runMomentPhrase(refused.firstAtMinute)}) give`
+  const fix =
+    facts.temperatureC < range.minC
+      ? `Charge the pack indoors or warm it to above ${range.minC} °C before it goes on the charger`
+      : `Let the pack cool in the shade to below ${range.maxC} °C before it goes on the charger`
+  return [
+    warning(
+      'charge-temperature-out-of-range',
+      `At ${temperatureC} °C the pack must not be charged: ${CHEMISTRY_DATA[facts.chemistry].label} packs charge only between ${range.minC} and ${range.maxC} °C. ${breaks} it no charge, and the figures here count none. ${fix}, or bring a charged pack instead.`,
+      refused.firstAtMinute,
+    ),
+  ]
+}
+
 /** The level at the listener against NIOSH's REL and the WHO venue figure (docs/model.md §8). */
 export function hearingWarnings(facts: WarningFacts): EstimateWarning[] {
   const splDb = facts.averageSplDb

@@ -16,6 +16,7 @@ import {
   supplyRangeWarnings,
 } from './warning-checks-electrical'
 import {
+  chargeTemperatureWarnings,
   datasheetWarnings,
   hearingWarnings,
   leadAcidDepthWarnings,
@@ -60,6 +61,11 @@ export interface WarningFacts {
   childrenPresent: boolean
   permittedMinutes: number | null
   schedule: { lasts: boolean; stoppedAtMinute: number | null; totalMinutes: number } | null
+  /**
+   * The charging breaks (with power into the pack) at which the pack may not charge at this
+   * temperature: how many, and the minute the first begins. Null when there are none.
+   */
+  refusedCharging: { breaks: number; firstAtMinute: number } | null
   outputResistanceClamped: boolean
   abEfficiencyGiven: boolean
   nominalWh: number
@@ -69,10 +75,12 @@ export interface WarningFacts {
 /** One kind of check: the warnings it finds in the facts, none when all is well. */
 type WarningCheck = (facts: WarningFacts) => EstimateWarning[]
 
-// The order of the result: what stops the day first, then the dangers to the rig, then hearing,
+// The order of the result: what stops the day first (and a charge the day cannot count on),
+// then the dangers to the rig, then hearing,
 // the pack's care, and the notes and cautions that hold for every rig of its kind.
 const WARNING_CHECKS: readonly WarningCheck[] = [
   scheduleShortWarnings,
+  chargeTemperatureWarnings,
   cannotDeliverWarnings,
   loadWarnings,
   supplyRangeWarnings,

@@ -2,6 +2,7 @@
 // chargers over the whole day (pool.ts), the fewest packs to bring, and the pool's charge.
 import { estimate } from '../engine/estimate'
 import { CHEMISTRY_DATA } from '../engine/chemistry'
+import { onEventClock } from '../engine/moment'
 import { DEFAULT_TEMPERATURE_C } from '../engine/resolve'
 import { ENGINE_VERSION } from '../engine/version'
 import { minutesAfterMidnight, clockLabel } from '../plans/clock'
@@ -14,7 +15,7 @@ import type {
   EventRigAnswer,
   EventSummary,
 } from '../schemas/events'
-import type { ChargeablePack } from '../engine/charging'
+import { chargingPermitted, type ChargeablePack } from '../engine/charging'
 import { packKindOf, type PackKind } from './pack-kinds'
 import { simulatePool, type PoolCharger, type PoolDemand, type PoolOutcome } from './pool'
 import { poolChargeSeries } from './pool-charge'
@@ -31,10 +32,6 @@ export interface EventPlanInput {
 // The schema's limit on packs on hand: the engine is asked for the day with this many, so it
 // swaps whenever a pack is done and says how many turns the day takes.
 const ENOUGH_PACKS = 50
-
-// Common practice (lithium cell makers' datasheets): charge only between 0 °C and 45 °C.
-export const LITHIUM_CHARGE_MIN_C = 0
-export const LITHIUM_CHARGE_MAX_C = 45
 
 const severityRank: Record<Severity, number> = { info: 0, caution: 1, danger: 2 }
 
@@ -102,9 +99,24 @@ function kindFigures(runs: readonly PlanRun[]) {
   return kinds
 }
 
-function chargingAllowed(kind: PackKind, temperatureC: number): boolean {
-  if (!kind.isLithium) return true
-  return temperatureC >= LITHIUM_CHARGE_MIN_C && temperatureC <= LITHIUM_CHARGE_MAX_C
+/**
+ * The venue's air as the plans give it: an event has no temperature of its own, so each plan's
+ * (else its rig's, else the engine's default) stands for the air at the chargers in its part of
+ * the day. Not knowing which hours are colder, the chargers must suit the coldest and the hottest.
+ */
+interface VenueAir {
+  coldestC: number
+  hottestC: number
+}
+
+/**
+ * Where a kind may not be charged at the venue, the temperature that forbids it (charging.ts,
+ * chargingPermitted: one range per chemistry, ends included); null where it may be charged.
+ */
+function chargeRefusedAtC(kind: PackKind, air: VenueAir): number | null {
+  if (!chargingPermitted(kind.chemistry, air.coldestC)) return air.coldestC
+  if (!chargingPermitted(kind.chemistry, air.hottestC)) return air.hottestC
+  return null
 }
 
 /**
@@ -146,9 +158,11 @@ export function runEvent(
   if (plans.length === 0) return emptyAnswer()
   const runs = plans.map(runPlan)
   const figures = kindFigures(runs)
-  const coldestC = Math.min(
-    ...plans.map((plan) => plan.request.temperatureC ?? DEFAULT_TEMPERATURE_C),
-  )
+  const planTemperaturesC = plans.map((plan) => plan.request.temperatureC ?? DEFAULT_TEMPERATURE_C)
+  const air: VenueAir = {
+    coldestC: Math.min(...planTemperaturesC),
+    hottestC: Math.max(...planTemperaturesC),
+  }
   const cautions: EventCaution[] = []
   const startMinute = Math.min(...runs.map((run) => run.startMinute))
   const endMinute = Math.max(
@@ -160,7 +174,7 @@ export function runEvent(
     slots: charger.slots,
     kindKeys: charger.packKinds.filter((key) => {
       const known = figures.get(key)
-      return known !== undefined && chargingAllowed(known.kind, coldestC)
+      return known !== undefined && chargeRefusedAtC(known.kind, air) === null
     }),
   }))
   const packs = new Map([...figures].map(([key, known]) => [key, known.charge]))
@@ -181,9 +195,10 @@ export function runEvent(
 
   const rigs: EventRigAnswer[] = runs.map((run, index) => {
     const served = outcome.demands[index]!
+    // A danger's moment on the plan's clock ("at about 12:00"), as the plan's card says it.
     const dangers = run.result.warnings
       .filter((warning) => warning.severity === 'danger')
-      .map((warning) => warning.message)
+      .map((warning) => onEventClock(warning, (minute) => clockLabel(run.input.startTime, minute)))
     let worst: Severity | null = null
     for (const warning of run.result.warnings) {
       if (worst === null || severityRank[warning.severity] > severityRank[worst])
@@ -241,7 +256,7 @@ export function runEvent(
     isLithium: known.kind.isLithium,
   }))
 
-  cautions.push(...eventCautions(body, figures, kinds, coldestC, outcome))
+  cautions.push(...eventCautions(body, figures, kinds, air, outcome))
 
   const sessions = outcome.sessions.map((session) => ({
     chargerIndex: session.chargerIndex,
@@ -281,7 +296,7 @@ export function runEvent(
       outcome,
     }),
     cautions,
-    coldestC,
+    coldestC: air.coldestC,
   }
 }
 
@@ -307,20 +322,15 @@ function eventCautions(
   body: Pick<EventBody, 'pool' | 'chargers'>,
   figures: ReturnType<typeof kindFigures>,
   kinds: readonly EventKindAnswer[],
-  coldestC: number,
+  air: VenueAir,
   outcome: PoolOutcome,
 ): EventCaution[] {
   const cautions: EventCaution[] = []
   const charged = new Set(body.chargers.flatMap((charger) => charger.packKinds))
   for (const kind of kinds) {
     const known = figures.get(kind.key)!.kind
-    if (known.isLithium && charged.has(kind.key) && !chargingAllowed(known, coldestC)) {
-      cautions.push({
-        code: 'event-lithium-charge-temperature',
-        severity: 'danger',
-        message: `${kind.label}: lithium packs must not be charged at ${coldestC} °C (makers allow ${LITHIUM_CHARGE_MIN_C}–${LITHIUM_CHARGE_MAX_C} °C). The answer leaves them off the chargers; charge them somewhere warm, or bring more charged.`,
-      })
-    }
+    const refusedAtC = charged.has(kind.key) ? chargeRefusedAtC(known, air) : null
+    if (refusedAtC !== null) cautions.push(chargeTemperatureCaution(known, refusedAtC))
     if (kind.onHand < kind.toBring) {
       cautions.push({
         code: 'event-pool-short',
@@ -390,5 +400,22 @@ export function eventSummary(answer: EventAnswer): EventSummary {
       onHand: kind.onHand,
     })),
     worstSeverity: worst,
+  }
+}
+
+/**
+ * A kind kept off the chargers at `refusedAtC`, in plain words: why, what the answer did, and
+ * what to change. Lithium keeps the code it has always had; other chemistries get their own.
+ */
+function chargeTemperatureCaution(kind: PackKind, refusedAtC: number): EventCaution {
+  const range = CHEMISTRY_DATA[kind.chemistry].chargeTemperatureC!
+  const cold = refusedAtC < range.minC
+  const fix = cold
+    ? `Charge them indoors, or warm them to above ${range.minC} °C before they go on a charger`
+    : `Charge them where it is below ${range.maxC} °C, in the shade`
+  return {
+    code: kind.isLithium ? 'event-lithium-charge-temperature' : 'event-charge-temperature',
+    severity: 'danger',
+    message: `${kind.label}: these packs must not be charged at ${refusedAtC} °C, the ${cold ? 'coldest' : 'hottest'} temperature among these plans (makers allow ${range.minC} to ${range.maxC} °C). The answer keeps them off the chargers all day, so the packs to bring count no charge for them. ${fix}, or bring more charged.`,
   }
 }

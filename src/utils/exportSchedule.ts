@@ -16,6 +16,11 @@ export interface ScheduleExport {
   swaps: readonly { atMinute: number; pack: number }[]
   /** Minute the sound stops early when the day does not last, or null when it lasts. */
   stoppedAtMinute: number | null
+  /**
+   * The day's temperature is outside the pack's charge range (the result's warning
+   * 'charge-temperature-out-of-range'): its charging breaks must not charge. Absent: false.
+   */
+  chargingRefused?: boolean
   /** Makes calendar entries stable across exports (a re-import updates, not duplicates). */
   uidPrefix: string
 }
@@ -29,9 +34,17 @@ const STATE_WORDS = {
   charging: 'silent, pack on the charger',
 } as const
 
-/** A segment's state in words; a charging break says the power into the pack. */
-function segmentWords(segment: ScheduleSegment): string {
+// A charging break the engine refuses at the day's temperature: the crew must not charge either.
+const REFUSED_CHARGING_WORDS =
+  "silent, do NOT charge the pack at this temperature: see the plan's warnings"
+
+/**
+ * A segment's state in words; a charging break says the power into the pack, or that it must not
+ * charge (`chargingRefused`).
+ */
+function segmentWords(segment: ScheduleSegment, chargingRefused: boolean): string {
   const state = segment.state ?? 'on'
+  if (state === 'charging' && chargingRefused) return REFUSED_CHARGING_WORDS
   return state === 'charging' && segment.chargeW !== undefined
     ? `${STATE_WORDS.charging} at ${segment.chargeW} W`
     : STATE_WORDS[state]
@@ -52,7 +65,7 @@ function scheduleRows(plan: ScheduleExport): ScheduleRow[] {
   let minute = 0
   for (const segment of plan.schedule) {
     if (plan.stoppedAtMinute !== null && minute > plan.stoppedAtMinute) break
-    const state = segmentWords(segment)
+    const state = segmentWords(segment, plan.chargingRefused ?? false)
     rows.push({
       minute,
       event: 'Segment',
@@ -128,7 +141,10 @@ export function scheduleIcs(
       uid: `${plan.uidPrefix}-day@loudhour`,
       title: plan.planName,
       description: plan.schedule
-        .map((segment) => `${segment.label}: ${segment.minutes} min, ${segmentWords(segment)}`)
+        .map(
+          (segment) =>
+            `${segment.label}: ${segment.minutes} min, ${segmentWords(segment, plan.chargingRefused ?? false)}`,
+        )
         .join('\n'),
       start: dateArray(plan, 0),
       duration: { minutes: Math.max(1, Math.round(totalMinutes)) },

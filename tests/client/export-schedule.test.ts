@@ -158,8 +158,8 @@ describe('the swap schedule as iCalendar', () => {
 })
 
 describe('a charging break in the exports', () => {
-  it('says the rig is silent and the power going into the pack', () => {
-    // Source: the plan itself: a 45-minute break on a 40 W charger from 10:00
+  /** A morning, then a 45-minute break on a 40 W charger from 10:00; its CSV row and calendar. */
+  function chargingBreak(chargingRefused: boolean) {
     const day: ScheduleExport = {
       ...plan,
       schedule: [
@@ -167,13 +167,28 @@ describe('a charging break in the exports', () => {
         { label: 'Car charger', minutes: 45, state: 'charging', chargeW: 40 },
       ],
       swaps: [],
+      chargingRefused,
     }
     const rows = Papa.parse<string[]>(scheduleCsv(day), { skipEmptyLines: true }).data
-    const charging = rows.find((row) => row[4]?.startsWith('Car charger'))
-    expect(charging?.[1]).toBe('10:00')
-    expect(charging?.[4]).toBe('Car charger (silent, pack on the charger at 40 W)')
     // RFC 5545 §3.1: long lines are folded with CRLF and a space; unfold before reading.
     const unfolded = scheduleIcs(day).replace(/\r\n[ \t]/g, '')
+    return { charging: rows.find((row) => row[4]?.startsWith('Car charger')), unfolded }
+  }
+
+  it('says the rig is silent and the power going into the pack', () => {
+    // Source: the plan itself: a 45-minute break on a 40 W charger from 10:00
+    const { charging, unfolded } = chargingBreak(false)
+    expect(charging?.[1]).toBe('10:00')
+    expect(charging?.[4]).toBe('Car charger (silent, pack on the charger at 40 W)')
     expect(unfolded).toContain('Car charger: 45 min\\, silent\\, pack on the charger at 40 W')
+  })
+
+  it("says not to charge when the day is outside the pack's charge temperature range", () => {
+    // Source: common practice (makers' datasheets): never charge lithium below 0 °C; the plan's
+    // result then carries the warning charge-temperature-out-of-range
+    const { charging, unfolded } = chargingBreak(true)
+    expect(charging?.[4]).toMatch(/do NOT charge the pack/)
+    expect(charging?.[4]).not.toMatch(/on the charger/)
+    expect(unfolded).toContain('do NOT charge the pack')
   })
 })

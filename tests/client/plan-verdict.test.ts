@@ -28,6 +28,24 @@ describe('the plan verdict', () => {
     expect(html.indexOf('plan-must-change')).toBeLessThan(html.indexOf('plan-lasts'))
   })
 
+  it("says a charging break below 0 °C gives no charge, on the plan's clock", () => {
+    // Source: common practice (makers' datasheets): never charge lithium below 0 °C. The plan
+    // starts at 08:00 and breaks to charge after an hour's set: at 09:00.
+    const request = variant(columnRig(), {
+      temperatureC: -5,
+      schedule: [
+        { label: 'Set', minutes: 60 },
+        { label: 'Car charger', minutes: 30, state: 'charging', chargeW: 40 },
+        { label: 'Set', minutes: 60 },
+      ],
+    })
+    const refused = verdictFor(request).get(
+      '[data-testid="plan-warning-charge-temperature-out-of-range"]',
+    )
+    expect(refused.text()).toMatch(/The charging break at about 09:00 gives it no charge/)
+    expect(refused.text()).toMatch(/bring a charged pack instead/)
+  })
+
   it('shows the day alone when nothing must change', () => {
     // Source: the column rig's 26 V maximum is above its 21.0 V pack off the charger.
     const request = variant(columnRig(), { schedule: [{ label: 'Set', minutes: 60 }] })

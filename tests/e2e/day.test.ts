@@ -15,20 +15,24 @@ async function openSaturdayMarket(): Promise<void> {
   await page.getByTestId('plan-lasts').waitFor()
 }
 
+/** The lunch segment (the fourth) becomes a charging break on a 40 W car charger. */
+async function chargeAtLunch(): Promise<void> {
+  const { page } = app.browser
+  const lunch = page.getByTestId('segment-3')
+  // A switched-off segment has one picker: what the rig does.
+  await lunch.locator('.n-select').click()
+  await page.locator('.n-base-select-option', { hasText: /^Charging$/ }).click()
+  const power = page.getByTestId('segment-3-charge').locator('input')
+  await power.fill('40')
+  await power.blur()
+  await lunch.getByText('the pack in it charges up to full').waitFor()
+}
+
 describe('the whole day', () => {
   it('adds a charging break to a plan and shows each segment’s level', async () => {
     const { page } = app.browser
     await openSaturdayMarket()
-
-    // The lunch segment (the fourth) becomes a charging break on a 40 W car charger.
-    const lunch = page.getByTestId('segment-3')
-    // A switched-off segment has one picker: what the rig does.
-    await lunch.locator('.n-select').click()
-    await page.locator('.n-base-select-option', { hasText: /^Charging$/ }).click()
-    const power = page.getByTestId('segment-3-charge').locator('input')
-    await power.fill('40')
-    await power.blur()
-    await lunch.getByText('the pack in it charges up to full').waitFor()
+    await chargeAtLunch()
     await page.getByTestId('plan-timeline').getByText('Charging 40 W').first().waitFor()
 
     const table = page.getByTestId('table-plan-energy')
@@ -40,6 +44,26 @@ describe('the whole day', () => {
     const morning = table.getByRole('row', { name: /Morning music/ })
     expect(await morning.textContent()).toMatch(/\d+\sdBA/)
     await app.browser.screenshot('plan-charging-break')
+  })
+
+  it('gives the pack no charge at a break below 0 °C and says what to do instead', async () => {
+    // Source: common practice (lithium cell makers' datasheets): never charge below 0 °C.
+    const { page } = app.browser
+    await openSaturdayMarket()
+    await chargeAtLunch()
+    const temperature = page.getByLabel('Temperature')
+    await temperature.fill('-5')
+    await temperature.blur()
+    const refused = page.getByTestId('plan-warning-charge-temperature-out-of-range')
+    await refused.waitFor()
+    const words = await refused.textContent()
+    expect(words).toMatch(/The charging break at about \d\d:\d\d gives it no charge/)
+    expect(words).toMatch(/warm it to above 0 °C/)
+    // Nothing goes into the pack at the break.
+    const lunchRow = page.getByTestId('table-plan-energy').getByRole('row', { name: /Charging/ })
+    expect(await lunchRow.first().textContent()).toMatch(/(^|[^\d.])0\.0\sWh into the pack/)
+    await refused.scrollIntoViewIfNeeded()
+    await app.browser.screenshot('plan-cold-charging-break')
   })
 
   it('puts the meter reading of each music segment on the runtime card', async () => {

@@ -200,6 +200,24 @@ describe('the meter readings on the card', () => {
     expect(Math.abs(reading(finale!.meter) - reading(band!.meter) - 6)).toBeLessThanOrEqual(1)
   })
 
+  it('tells the crew not to charge a lithium pack at the break below 0 °C, and why', () => {
+    // Source: Samsung SDI ICR18650-26C specification, charge 0 to 45 °C; common practice: never
+    // charge lithium below 0 °C. The plan is on the card's clock: the break starts at 10:30.
+    const card = planCard(variant(marketDay(10), { temperatureC: -5 }), {
+      date: '2026-12-12',
+      startTime: '10:00',
+    })
+    expect(card.segments[1]!.activity).toBe(
+      'Rig silent; do NOT charge its pack at -5 °C (23 °F) (see the warnings)',
+    )
+    const refused = card.warnings.find((w) => w.code === 'charge-temperature-out-of-range')
+    expect(refused?.severity).toBe('danger')
+    expect(refused?.message).toMatch(/The charging break at about 10:30 gives it no charge/)
+    expect(card.cautions.find((caution) => caution.topic === 'battery')?.text).toMatch(
+      /Charging at a break: only between 0 and 45 °C,/,
+    )
+  })
+
   it('reads about 10.5 dB less at 10 m than at 3 m', () => {
     // Source: inverse-square law in free field: 20·log10(10/3) = 10.46 dB (each reading rounded)
     const near = cardAt(3).segments[3]!

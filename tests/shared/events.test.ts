@@ -252,16 +252,72 @@ describe('the event answer (runEvent)', () => {
     expect(answer.cautions.map((caution) => caution.code)).toContain('event-pool-short')
   })
 
+  /** The market plan on days at these temperatures, `count` packs and a 200 W mains charger. */
+  function onMains(temperaturesC: readonly number[], count: number) {
+    const plans = temperaturesC.map((temperatureC, index) => ({
+      ...smallPackMarketPlan({ ...loudDay, temperatureC }),
+      planId: index + 1,
+    }))
+    const chargers = [{ label: 'Mains', powerW: 200, slots: 2, packKinds: [kind] }]
+    const answer = runEvent(plans, { pool: [{ kind, count }], chargers })
+    const caution = answer.cautions.find((item) => item.code === 'event-lithium-charge-temperature')
+    return { answer, caution }
+  }
+
   it('keeps lithium packs off the chargers below 0 °C and says so as a danger', () => {
     // Common practice (lithium cell makers' datasheets): charge only between 0 °C and 45 °C.
-    const cold = smallPackMarketPlan({ ...loudDay, temperatureC: -5 })
-    const answer = runEvent([cold], {
-      pool: [{ kind, count: 2 }],
-      chargers: [{ label: 'Mains', powerW: 200, slots: 2, packKinds: [kind] }],
-    })
+    const { answer, caution } = onMains([-5], 2)
     expect(answer.sessions).toHaveLength(0)
-    const caution = answer.cautions.find((item) => item.code === 'event-lithium-charge-temperature')
     expect(caution?.severity).toBe('danger')
+    expect(caution?.message).toMatch(/at -5 °C, the coldest temperature/)
+    expect(caution?.message).toMatch(/warm them to above 0 °C/)
+  })
+
+  it('keeps lithium packs off the chargers above 45 °C, and says to charge them cooler', () => {
+    // Source: Samsung SDI ICR18650-26C specification, charge 0 to 45 °C
+    const { answer, caution } = onMains([50], 2)
+    expect(answer.sessions).toHaveLength(0)
+    expect(caution?.severity).toBe('danger')
+    expect(caution?.message).toMatch(/at 50 °C, the hottest temperature/)
+    expect(caution?.message).toMatch(/0 to 45 °C/)
+    // Without the chargers' help two packs cannot last a day that takes more turns than that.
+    expect(answer.lasts).toBe(false)
+  })
+
+  it('keeps them off all day when one plan of the day is outside the range (the safe side)', () => {
+    // Source: Samsung SDI ICR18650-26C specification, charge 0 to 45 °C. The event has no
+    // temperature of its own: each plan's stands for the venue's air in its part of the day, so
+    // the chargers must suit the coldest and the hottest of them.
+    const { answer, caution } = onMains([15, 50], 4)
+    expect(answer.sessions).toHaveLength(0)
+    expect(answer.coldestC).toBe(15)
+    expect(caution?.message).toMatch(/at 50 °C, the hottest temperature/)
+    // The same two plans on a mild day both: the chargers work.
+    expect(onMains([15, 15], 4).answer.sessions.length).toBeGreaterThan(0)
+  })
+
+  it("names a plan's refused charging break on the plan's clock among the rig's dangers", () => {
+    // Source: common practice: never charge lithium below 0 °C. The plan starts at 08:00 and
+    // breaks to charge after 2 h of music, so the break is at 10:00.
+    const cold = smallPackMarketPlan({
+      temperatureC: -5,
+      schedule: [
+        { label: 'Music', minutes: 120, state: 'on' },
+        { label: 'Car charger', minutes: 60, state: 'charging', chargeW: 40 },
+        { label: 'Music', minutes: 120, state: 'on' },
+      ],
+    })
+    const answer = runEvent([cold], { pool: [{ kind, count: 6 }], chargers: [] })
+    const rig = answer.rigs[0]!
+    expect(rig.lasts).toBe(false)
+    expect(rig.dangers.join(' ')).toMatch(/The charging break at about 10:00 gives it no charge/)
+  })
+
+  it('charges lithium packs at exactly 0 °C: the datasheet range includes its ends', () => {
+    // Source: Samsung SDI ICR18650-26C specification, charge 0 to 45 °C
+    const { answer, caution } = onMains([0], 2)
+    expect(answer.sessions.length).toBeGreaterThan(0)
+    expect(caution).toBeUndefined()
   })
 
   it('needs fewer packs with a charger at the venue than without', () => {

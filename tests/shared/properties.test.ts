@@ -96,6 +96,16 @@ const requestArbitrary = fc
     })
   })
 
+/** The request with every switched-off segment turned into a charging break at `chargeW`. */
+function chargingInPlaceOfOff(request: EstimateRequest, chargeW: number): EstimateRequest {
+  return {
+    ...request,
+    schedule: request.schedule!.map((segment) =>
+      segment.state === 'off' ? { ...segment, state: 'charging' as const, chargeW } : segment,
+    ),
+  }
+}
+
 function allFinite(value: unknown): boolean {
   if (typeof value === 'number') return Number.isFinite(value)
   if (Array.isArray(value)) return value.every(allFinite)
@@ -247,19 +257,39 @@ describe('engine properties', { timeout: 30_000 }, () => {
         requestArbitrary.filter((request) => request.schedule !== undefined),
         fc.double({ min: 1, max: 300, noNaN: true }),
         (request, chargeW) => {
-          const charged = {
-            ...request,
-            schedule: request.schedule!.map((segment) =>
-              segment.state === 'off'
-                ? { ...segment, state: 'charging' as const, chargeW }
-                : segment,
-            ),
-          }
+          const charged = chargingInPlaceOfOff(request, chargeW)
           const plain = estimate(request)
           const result = estimate(charged)
           expect(allFinite(result)).toBe(true)
           expect(result.runtimeHours).toBeGreaterThanOrEqual(plain.runtimeHours - 1e-9)
           if (plain.schedule!.lasts) expect(result.schedule!.lasts).toBe(true)
+        },
+      ),
+      params,
+    )
+  })
+
+  it('gains nothing at a charging break outside the charge temperature range', () => {
+    // Source: makers' charge ranges (Samsung SDI ICR18650-26C specification: 0 to 45 °C; LiFePO4
+    // and NiMH from 0 °C too, from memory): outside them the pack takes no charge, so the break
+    // leaves it as a switched-off one would, and the day ends where it did without the charger
+    fc.assert(
+      fc.property(
+        requestArbitrary.filter(
+          (request) => request.schedule !== undefined && request.pack.chemistry !== 'lead-acid',
+        ),
+        fc.double({ min: 1, max: 300, noNaN: true }),
+        fc.constantFrom(-15, -0.5, 46, 60),
+        (request, chargeW, temperatureC) => {
+          const off = { ...request, temperatureC }
+          const charged = chargingInPlaceOfOff(off, chargeW)
+          const plain = estimate(off)
+          const result = estimate(charged)
+          expect(result.runtimeHours).toBeCloseTo(plain.runtimeHours, 6)
+          expect(result.schedule!.endSocPct).toBeCloseTo(plain.schedule!.endSocPct, 6)
+          expect(result.warnings.map((warning) => warning.code)).toContain(
+            'charge-temperature-out-of-range',
+          )
         },
       ),
       params,
