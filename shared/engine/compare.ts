@@ -110,7 +110,14 @@ const STOPS_AT_ONCE_MINUTES = 1
 // Dangers that are not about the pack and the rig's parts: a day too long for the packs on hand
 // is the `lasts` column, and a level over a hearing limit is the rig's level, fixed by playing
 // quieter on any pack. Every other danger, including ones added later, makes a pack not fit.
-const NOT_ABOUT_FIT = new Set(['schedule-short', 'hearing-over-venue-limit'])
+// Dangers about the day, not about a pack harming the rig's parts: a day that falls short is the
+// "lasts" column, and a charging break refused for the temperature already counts no charge in
+// that column's figures (the plan page says why).
+const NOT_ABOUT_FIT = new Set([
+  'schedule-short',
+  'hearing-over-venue-limit',
+  'charge-temperature-out-of-range',
+])
 
 const stopsAtOnceText: Partial<Record<StopReason, string>> = {
   'amp-lockout':

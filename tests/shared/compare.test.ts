@@ -113,6 +113,26 @@ describe('whether a pack fits the rig', () => {
     expect(row!.fits).toBe(true)
   })
 
+  it('keeps a li-ion pack on a frosty day with a charging break: the break counts no charge', () => {
+    // Source: makers' datasheets (Samsung SDI ICR18650-26C: charge 0 to 45 °C) forbid charging
+    // li-ion below 0 °C, so the break adds nothing; that is the "lasts" column's business, not
+    // a part over its rating (common practice: a 5S2P tool pack suits a board rated to 26 V).
+    const frosty = variant(day, {
+      temperatureC: -5,
+      schedule: [
+        { label: 'Morning', minutes: 120 },
+        { label: 'Car charger', minutes: 60, state: 'charging', chargeW: 40 },
+        { label: 'Afternoon', minutes: 60 },
+      ],
+    })
+    const [row] = comparePacks(frosty, [toolPack(2)])
+    expect(row!.fits).toBe(true)
+    expect(row!.problems).toEqual([])
+    // The estimate with that pack does carry the refusal, as a danger the plan page shows.
+    const codes = estimate(variant(frosty, { pack: toolPack(2) })).warnings.map((w) => w.code)
+    expect(codes).toContain('charge-temperature-out-of-range')
+  })
+
   it('refuses a pack that puts a directly fed part over its maximum', () => {
     // Common practice: 5 li-ion cells in series are 21 V off the charger; a part wired straight
     // to the pack with a 15 V maximum would see 6 V too much.
