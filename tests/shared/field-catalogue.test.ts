@@ -76,6 +76,15 @@ describe('the field catalogue', () => {
     expect(new Set(labels).size).toBe(labels.length)
   })
 
+  it.each(entries)('names %s in words, never by a path or a code name', (key, entry) => {
+    // The label is shown on screen and in messages ("What the estimate assumed" too): a path
+    // such as `pack.cutoffCellV` or `accessories.0.idleW` means nothing to the crew.
+    for (const text of [entry.label, entry.help ?? '']) {
+      expect(text).not.toMatch(/\b[A-Za-z]+\.(\d+|[A-Za-z]+)\b/)
+      expect(text).not.toMatch(/\b[a-z]+[A-Z][a-z]+/)
+    }
+  })
+
   it('says the whole range and unit in one sentence', () => {
     expect(messagesFor('pack.seriesCells', 0)).toEqual([
       'Cells in series must be a whole number from 1 to 100',
