@@ -101,6 +101,41 @@ describe('the field catalogue', () => {
     ])
   })
 
+  it('names both fields of a cross-field message by their labels', () => {
+    // Wiring checks: a message that compares two fields reads both names from the catalogue.
+    const amplifier = {
+      class: 'd',
+      bridged: false,
+      channels: 1,
+      ratedPowerW: 20,
+      ratedLoadOhm: 4,
+      ratedSupplyV: 12,
+      supplyMaxV: 14,
+      lockoutV: 15,
+    }
+    const issues = amplifierSchema.safeParse(amplifier).error?.issues ?? []
+    expect(issues.map((issue) => issue.message)).toContain(
+      `${FIELDS['amplifier.lockoutV'].label} must be below the maximum supply voltage`,
+    )
+    const mixer = {
+      label: 'Mixer',
+      powerW: 5,
+      inputMinV: 15,
+      inputMaxV: 9,
+      feed: 'isolated',
+      converterInputMinV: 30,
+      converterInputMaxV: 10,
+    }
+    expect(accessorySchema.safeParse(mixer).error?.issues.map((issue) => issue.message)).toEqual([
+      'Accessory "Mixer": converter minimum input voltage must not be above the converter maximum input voltage',
+      'Accessory "Mixer": accessory minimum input voltage must not be above the accessory maximum input voltage',
+    ])
+    const charging = { label: 'Lunch', minutes: 60, state: 'charging' }
+    expect(scheduleSegmentSchema.safeParse(charging).error?.issues[0]?.message).toBe(
+      'Segment "Lunch" is a charging break: give the charging power into the pack in W',
+    )
+  })
+
   it('keeps the physical bounds', () => {
     // Source: conservation of energy: no amplifier or converter gives out more than it takes in.
     expect(FIELDS['amplifier.efficiency'].max).toBe(1)
