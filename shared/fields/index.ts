@@ -12,6 +12,16 @@ import { speakerFields } from './speakers'
 import type { NumberFieldEntry } from './types'
 
 export type { FieldDisplay, NumberFieldEntry } from './types'
+export {
+  ACCESSORY_FEEDS,
+  AMPLIFIER_CLASSES,
+  CHOICES,
+  choiceEntry,
+  choiceOptions,
+  choiceWords,
+  type ChoiceFieldEntry,
+  type ChoiceKey,
+} from './choices'
 export { MAX_SCHEDULE_MINUTES, MAX_SUPPLY_V } from './limits'
 
 export const FIELDS = {

@@ -3,7 +3,13 @@
 // so screens can show what was assumed.
 import { z } from 'zod'
 import { CHEMISTRIES, CHEMISTRY_DATA } from '../engine/chemistry'
-import { FIELDS, MAX_SCHEDULE_MINUTES } from '../fields'
+import {
+  ACCESSORY_FEEDS,
+  AMPLIFIER_CLASSES,
+  CHOICES,
+  FIELDS,
+  MAX_SCHEDULE_MINUTES,
+} from '../fields'
 import { fieldLabel, fieldLabelInSentence as inSentence, numberField } from './number-field'
 import { singleLineMessage, singleLinePattern } from './single-line'
 
@@ -26,15 +32,7 @@ function flag(label: string) {
 }
 
 export const CHEMISTRY_VALUES = CHEMISTRIES
-export const AMPLIFIER_CLASSES = ['d', 'ab', 'a'] as const
-export const ACCESSORY_FEEDS = [
-  'direct',
-  'buck',
-  'boost',
-  'buck-boost',
-  'isolated',
-  'linear',
-] as const
+export { ACCESSORY_FEEDS, AMPLIFIER_CLASSES }
 export const SEGMENT_STATES = ['on', 'idle', 'off', 'charging'] as const
 export const SWAP_MODES = ['when-empty', 'at-break-below'] as const
 export const STOP_REASONS = [
@@ -63,7 +61,7 @@ export const SEVERITIES = ['info', 'caution', 'danger'] as const
 export const packSchema = z
   .object(
     {
-      chemistry: choice('Chemistry', CHEMISTRIES),
+      chemistry: choice(CHOICES['pack.chemistry'].label, CHEMISTRIES),
       seriesCells: numberField('pack.seriesCells'),
       parallelCells: numberField('pack.parallelCells'),
       cellCapacityAh: numberField('pack.cellCapacityAh'),
@@ -136,7 +134,7 @@ export const speakerLeadsSchema = copperPairSchema('Speaker lead', 'speakerLeads
 export const amplifierSchema = z
   .object(
     {
-      class: choice('Amplifier class', AMPLIFIER_CLASSES),
+      class: choice(CHOICES['amplifier.class'].label, AMPLIFIER_CLASSES),
       bridged: flag('Bridged (BTL) output'),
       channels: numberField('amplifier.channels'),
       ratedPowerW: numberField('amplifier.ratedPowerW'),
@@ -200,7 +198,7 @@ export const accessorySchema = z
       powerW: numberField('accessory.powerW'),
       inputMinV: numberField('accessory.inputMinV'),
       inputMaxV: numberField('accessory.inputMaxV'),
-      feed: choice('Accessory feed', ACCESSORY_FEEDS),
+      feed: choice(CHOICES['accessory.feed'].label, ACCESSORY_FEEDS),
       outputV: numberField('accessory.outputV').optional(),
       efficiency: numberField('accessory.efficiency').optional(),
       idleW: numberField('accessory.idleW').optional(),

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest'
 import type { z } from 'zod'
-import { FIELDS, type FieldKey, type NumberFieldEntry } from '../../shared/fields'
+import { CHOICES, FIELDS, type FieldKey, type NumberFieldEntry } from '../../shared/fields'
 import {
   accessorySchema,
   amplifierSchema,
@@ -150,6 +150,30 @@ describe('the field catalogue', () => {
     expect(FIELDS['pack.cellResistanceOhm'].aboveMin).toBe(true)
     expect(FIELDS['leads.areaMm2'].aboveMin).toBe(true)
   })
+})
+
+describe('the choice fields of the catalogue', () => {
+  const choices = [
+    ['pack.chemistry', packSchema.shape.chemistry],
+    ['amplifier.class', amplifierSchema.shape.class],
+    ['accessory.feed', accessorySchema.shape.feed],
+  ] as const
+
+  it.each(choices)(
+    'lists every code %s takes, in words, named as its message names it',
+    (key, schema) => {
+      // A wiring check: the schema's codes and the catalogue's options are the same list.
+      const entry = CHOICES[key]
+      expect(Object.keys(entry.options)).toEqual(schema.options)
+      const refused = schema.safeParse('none of these').error?.issues[0]?.message ?? ''
+      expect(refused.startsWith(`${entry.label} must be one of: `)).toBe(true)
+      for (const [code, words] of Object.entries(entry.options)) {
+        // Words, not the code: a code such as "buck-boost" or "lifepo4" is the API's, not the crew's.
+        expect(words).not.toBe(code)
+        expect(words).toMatch(/^\p{Lu}/u)
+      }
+    },
+  )
 })
 
 function escape(text: string): string {
