@@ -59,7 +59,7 @@ describe('what applying a measured health changes', () => {
     const keeping = panel.get('[data-testid="health-effect-keeping"]').findAll('li')
     expect(keeping.map((item) => item.text())).toEqual([
       // The pack form's own labels for the fields that differ.
-      'Column on other cells, because it has its own copy of the pack, which differs in cell capacity, cutoff per cell: the log was read against the pack as saved.',
+      'Column on other cells, because it has its own copy of the pack, which differs in cell capacity, cutoff voltage per cell: the log was read against the pack as saved.',
       'Twin column, because it already uses this figure.',
       'Spare column (on "Spare"), Sports day column, because they use other packs.',
     ])
