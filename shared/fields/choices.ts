@@ -1,4 +1,4 @@
-// The choice fields that several forms show (the bench, the parts library, the plans): each one's
+// The choice and yes-or-no fields that several forms show (the bench, the parts library, the plans): each one's
 // label, help and its options in plain words, once. The schema's message names the field by this
 // label; the codes themselves are the request's contract and stay in the schema.
 import { CHEMISTRIES, CHEMISTRY_DATA, type Chemistry } from '../engine/chemistry'
@@ -50,6 +50,27 @@ export const CHOICES = {
     },
   } satisfies ChoiceFieldEntry<(typeof ACCESSORY_FEEDS)[number]>,
 } as const
+
+/** A yes-or-no field: its label and help, as every form and the schema's message say them. */
+export interface FlagFieldEntry {
+  label: string
+  help?: string
+}
+
+export const FLAGS = {
+  'amplifier.bridged': { label: 'Bridged (BTL) output' },
+  childrenPresent: {
+    label: 'Children in the audience',
+    help: 'Children get a stricter hearing caution.',
+  },
+} as const satisfies Record<string, FlagFieldEntry>
+
+/** A flag's key in the catalogue: `amplifier.bridged`. */
+export type FlagKey = keyof typeof FLAGS
+
+export function flagEntry(key: FlagKey): FlagFieldEntry {
+  return FLAGS[key]
+}
 
 /** A choice field's key in the catalogue: `pack.chemistry`. */
 export type ChoiceKey = keyof typeof CHOICES

@@ -19,8 +19,12 @@ export {
   choiceEntry,
   choiceOptions,
   choiceWords,
+  FLAGS,
+  flagEntry,
   type ChoiceFieldEntry,
   type ChoiceKey,
+  type FlagFieldEntry,
+  type FlagKey,
 } from './choices'
 export { MAX_SCHEDULE_MINUTES, MAX_SUPPLY_V } from './limits'
 

@@ -8,6 +8,7 @@ import {
   AMPLIFIER_CLASSES,
   CHOICES,
   FIELDS,
+  FLAGS,
   MAX_SCHEDULE_MINUTES,
 } from '../fields'
 import { fieldLabel, fieldLabelInSentence as inSentence, numberField } from './number-field'
@@ -135,7 +136,7 @@ export const amplifierSchema = z
   .object(
     {
       class: choice(CHOICES['amplifier.class'].label, AMPLIFIER_CLASSES),
-      bridged: flag('Bridged (BTL) output'),
+      bridged: flag(FLAGS['amplifier.bridged'].label),
       channels: numberField('amplifier.channels'),
       ratedPowerW: numberField('amplifier.ratedPowerW'),
       ratedLoadOhm: numberField('amplifier.ratedLoadOhm'),
@@ -304,7 +305,7 @@ export const estimateRequestSchema = z
       temperatureC: numberField('temperatureC').optional(),
       listenerDistanceM: numberField('listenerDistanceM').optional(),
       boundaryGainDb: numberField('boundaryGainDb').optional(),
-      childrenPresent: flag('Children present').optional(),
+      childrenPresent: flag(FLAGS.childrenPresent.label).optional(),
       swapPolicy: swapPolicySchema.optional(),
     },
     { error: 'The estimate request must be a JSON object' },

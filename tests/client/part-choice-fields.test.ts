@@ -16,6 +16,7 @@ describe('choice fields of the parts library', () => {
     expect(labelOf(fieldOf(kind('packs'), 'chemistry')!)).toBe('Chemistry')
     expect(labelOf(fieldOf(kind('amplifiers'), 'class')!)).toBe('Amplifier class')
     expect(labelOf(fieldOf(kind('accessories'), 'feed')!)).toBe('Accessory feed')
+    expect(labelOf(fieldOf(kind('amplifiers'), 'bridged')!)).toBe('Bridged (BTL) output')
   })
 
   it('shows a chosen code in words in the tables', () => {

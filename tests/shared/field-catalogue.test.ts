@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest'
 import type { z } from 'zod'
-import { CHOICES, FIELDS, type FieldKey, type NumberFieldEntry } from '../../shared/fields'
+import { CHOICES, FIELDS, FLAGS, type FieldKey, type NumberFieldEntry } from '../../shared/fields'
 import {
   accessorySchema,
   amplifierSchema,
@@ -174,6 +174,17 @@ describe('the choice fields of the catalogue', () => {
       }
     },
   )
+
+  it('names each yes-or-no field in its message as the forms do', () => {
+    // A wiring check: the schema's message reads the flag's label from the catalogue.
+    expect(amplifierSchema.shape.bridged.safeParse('yes').error?.issues[0]?.message).toBe(
+      `${FLAGS['amplifier.bridged'].label} must be true or false`,
+    )
+    const children = estimateRequestSchema.shape.childrenPresent.safeParse('yes')
+    expect(children.error?.issues[0]?.message).toBe(
+      `${FLAGS.childrenPresent.label} must be true or false`,
+    )
+  })
 })
 
 function escape(text: string): string {

@@ -1,5 +1,13 @@
 import type { z } from 'zod'
-import { choiceEntry, choiceWords, fieldEntry, type ChoiceKey, type FieldKey } from '@shared/fields'
+import {
+  choiceEntry,
+  choiceWords,
+  fieldEntry,
+  flagEntry,
+  type ChoiceKey,
+  type FieldKey,
+  type FlagKey,
+} from '@shared/fields'
 import { displayQuantity, showFigure, showQuantity } from '@/display/units'
 import {
   accessoriesApi,
@@ -41,9 +49,10 @@ export interface PartChoiceField extends PartFieldBase {
   type: 'choice'
   choice: ChoiceKey
 }
+/** Yes or no: its label in the catalogue. */
 export interface PartFlagField extends PartFieldBase {
   type: 'flag'
-  label: string
+  flag: FlagKey
 }
 export type PartField = PartNumberField | PartChoiceField | PartFlagField
 
@@ -107,7 +116,7 @@ export const partKinds: PartKind[] = [
     schema: amplifierBodySchema,
     fields: [
       choice('amplifier.class'),
-      { key: 'bridged', label: 'Bridged (BTL) output', type: 'flag', required: true },
+      { key: 'bridged', type: 'flag', flag: 'amplifier.bridged', required: true },
       number('amplifier.channels', true),
       number('amplifier.ratedPowerW', true),
       number('amplifier.ratedLoadOhm', true),
@@ -172,7 +181,7 @@ export function fieldOf(kind: PartKind, key: string): PartField | undefined {
 /** A field's label: the catalogue's for a number and a choice. */
 export function labelOf(field: PartField): string {
   if (field.type === 'number') return fieldEntry(field.field).label
-  return field.type === 'choice' ? choiceEntry(field.choice).label : field.label
+  return field.type === 'choice' ? choiceEntry(field.choice).label : flagEntry(field.flag).label
 }
 
 /** The unit a field is shown and typed in. */
