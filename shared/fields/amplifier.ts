@@ -20,14 +20,29 @@ export const amplifierFields = {
     min: 0,
     max: 30,
     aboveMin: true,
+    decimals: 1,
     help: 'Usually 1 % or 10 % THD.',
   },
   'amplifier.supplyMinV': voltageField('Minimum supply voltage'),
   'amplifier.supplyMaxV': voltageField('Maximum supply voltage'),
   'amplifier.lockoutV': { ...voltageField('Lock-out (undervoltage mute) voltage'), step: 0.5 },
-  'amplifier.idleCurrentA': { label: 'Idle current', unit: 'A', min: 0, max: 50, step: 0.01 },
+  // Named with the amplifier: converters draw idle power too, and a message is read on its own.
+  'amplifier.idleCurrentA': {
+    label: 'Amplifier idle current',
+    unit: 'A',
+    min: 0,
+    max: 50,
+    step: 0.01,
+  },
   'amplifier.efficiency': efficiencyField('Amplifier efficiency'),
-  'amplifier.minLoadOhm': { label: 'Minimum load', unit: 'Ω', min: 0, max: 100, aboveMin: true },
+  'amplifier.minLoadOhm': {
+    label: 'Amplifier minimum load',
+    unit: 'Ω',
+    min: 0,
+    max: 100,
+    aboveMin: true,
+    decimals: 1,
+  },
   // Extension: the board's supply capacitors, which smooth a little of a bass note's ripple.
   'amplifier.bulkCapacitanceUF': {
     label: 'Bulk capacitance on the supply',

@@ -12,6 +12,20 @@ import { speakerFields } from './speakers'
 import type { NumberFieldEntry } from './types'
 
 export type { FieldDisplay, NumberFieldEntry } from './types'
+export {
+  ACCESSORY_FEEDS,
+  AMPLIFIER_CLASSES,
+  CHOICES,
+  choiceEntry,
+  choiceOptions,
+  choiceWords,
+  FLAGS,
+  flagEntry,
+  type ChoiceFieldEntry,
+  type ChoiceKey,
+  type FlagFieldEntry,
+  type FlagKey,
+} from './choices'
 export { MAX_SCHEDULE_MINUTES, MAX_SUPPLY_V } from './limits'
 
 export const FIELDS = {

@@ -8,7 +8,7 @@ export const MAX_SCHEDULE_MINUTES = 10080
 
 /** A supply or input voltage: positive, up to the absurd-magnitude guard. */
 export function voltageField(label: string) {
-  return { label, unit: 'V', min: 0, max: MAX_SUPPLY_V, aboveMin: true } as const
+  return { label, unit: 'V', min: 0, max: MAX_SUPPLY_V, aboveMin: true, decimals: 1 } as const
 }
 
 /**

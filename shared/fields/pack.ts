@@ -45,6 +45,7 @@ export const packFields = {
     max: 120,
     aboveMin: true,
     step: 5,
+    decimals: 0,
   },
   'pack.maxDischargeA': {
     label: 'Maximum continuous discharge',

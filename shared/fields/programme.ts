@@ -11,7 +11,14 @@ export const programmeFields = {
     help: '0 dB: peaks just reach clipping; each 3 dB more halves the average power',
   },
   'programme.crestFactorDb': { label: 'Crest factor', unit: 'dB', min: 0, max: 30, step: 0.5 },
-  'programme.playingPct': { label: 'Playing share', unit: '%', min: 0, max: 100, step: 5 },
+  'programme.playingPct': {
+    label: 'Playing share',
+    unit: '%',
+    min: 0,
+    max: 100,
+    step: 5,
+    decimals: 0,
+  },
   'segment.minutes': {
     label: 'Segment length',
     unit: 'min',

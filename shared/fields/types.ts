@@ -28,7 +28,8 @@ export interface NumberFieldEntry {
   display?: FieldDisplay
   /**
    * How many decimals the field's figures show where its value is worked out rather than typed
-   * (a wire's AWG from its mm², and back); the display quantity's own decimals otherwise.
+   * (a wire's AWG from its mm², and back; a default the estimate assumed); the display
+   * quantity's own decimals where it has one, else none for a whole number and 2 for others.
    */
   decimals?: number
   /** Said under the field: where to find the value, or what it means. */

@@ -3,8 +3,15 @@
 // so screens can show what was assumed.
 import { z } from 'zod'
 import { CHEMISTRIES, CHEMISTRY_DATA } from '../engine/chemistry'
-import { MAX_SCHEDULE_MINUTES } from '../fields'
-import { numberField } from './number-field'
+import {
+  ACCESSORY_FEEDS,
+  AMPLIFIER_CLASSES,
+  CHOICES,
+  FIELDS,
+  FLAGS,
+  MAX_SCHEDULE_MINUTES,
+} from '../fields'
+import { fieldLabel, fieldLabelInSentence as inSentence, numberField } from './number-field'
 import { singleLineMessage, singleLinePattern } from './single-line'
 
 export function text(label: string, maxLength: number) {
@@ -26,15 +33,7 @@ function flag(label: string) {
 }
 
 export const CHEMISTRY_VALUES = CHEMISTRIES
-export const AMPLIFIER_CLASSES = ['d', 'ab', 'a'] as const
-export const ACCESSORY_FEEDS = [
-  'direct',
-  'buck',
-  'boost',
-  'buck-boost',
-  'isolated',
-  'linear',
-] as const
+export { ACCESSORY_FEEDS, AMPLIFIER_CLASSES }
 export const SEGMENT_STATES = ['on', 'idle', 'off', 'charging'] as const
 export const SWAP_MODES = ['when-empty', 'at-break-below'] as const
 export const STOP_REASONS = [
@@ -63,7 +62,7 @@ export const SEVERITIES = ['info', 'caution', 'danger'] as const
 export const packSchema = z
   .object(
     {
-      chemistry: choice('Chemistry', CHEMISTRIES),
+      chemistry: choice(CHOICES['pack.chemistry'].label, CHEMISTRIES),
       seriesCells: numberField('pack.seriesCells'),
       parallelCells: numberField('pack.parallelCells'),
       cellCapacityAh: numberField('pack.cellCapacityAh'),
@@ -85,7 +84,7 @@ export const packSchema = z
       context.addIssue({
         code: 'custom',
         path: ['cutoffCellV'],
-        message: `Cutoff voltage per cell (${pack.cutoffCellV} V) must be below the full-charge voltage of a ${CHEMISTRY_DATA[pack.chemistry].label} cell (${fullCellV.toFixed(2)} V)`,
+        message: `${fieldLabel('pack.cutoffCellV')} (${pack.cutoffCellV} V) must be below the full-charge voltage of a ${CHEMISTRY_DATA[pack.chemistry].label} cell (${fullCellV.toFixed(2)} V)`,
       })
     }
   })
@@ -106,7 +105,9 @@ function copperPairSchema(noun: string, run: 'leads' | 'speakerLeads') {
 }
 
 /** Exactly one of AWG and mm² (both or neither is ambiguous). */
-function oneWireSize(lower: string) {
+function oneWireSize(run: 'leads' | 'speakerLeads') {
+  const [awg, area] = [`${run}.awg`, `${run}.areaMm2`] as const
+  const message = `Give either the ${inSentence(awg)} (${FIELDS[awg].unit}) or the ${inSentence(area)} (${FIELDS[area].unit}), exactly one of them`
   return (
     wire: { awg?: number | undefined; areaMm2?: number | undefined },
     context: z.RefinementCtx,
@@ -115,7 +116,7 @@ function oneWireSize(lower: string) {
       context.addIssue({
         code: 'custom',
         path: ['awg'],
-        message: `Give the ${lower}'s wire size either as AWG or as area in mm², exactly one of them`,
+        message,
       })
     }
   }
@@ -125,17 +126,17 @@ export const leadsSchema = copperPairSchema('Lead', 'leads')
   .extend({
     connectorOhm: numberField('leads.connectorOhm').optional(),
   })
-  .superRefine(oneWireSize('lead'))
+  .superRefine(oneWireSize('leads'))
 
 export const speakerLeadsSchema = copperPairSchema('Speaker lead', 'speakerLeads').superRefine(
-  oneWireSize('speaker lead'),
+  oneWireSize('speakerLeads'),
 )
 
 export const amplifierSchema = z
   .object(
     {
-      class: choice('Amplifier class', AMPLIFIER_CLASSES),
-      bridged: flag('Bridged (BTL) output'),
+      class: choice(CHOICES['amplifier.class'].label, AMPLIFIER_CLASSES),
+      bridged: flag(FLAGS['amplifier.bridged'].label),
       channels: numberField('amplifier.channels'),
       ratedPowerW: numberField('amplifier.ratedPowerW'),
       ratedLoadOhm: numberField('amplifier.ratedLoadOhm'),
@@ -155,22 +156,28 @@ export const amplifierSchema = z
   )
   .superRefine((amplifier, context) => {
     const { supplyMinV, supplyMaxV, lockoutV, ratedSupplyV } = amplifier
-    const fail = (path: string, message: string) =>
-      context.addIssue({ code: 'custom', path: [path], message })
+    // Each message names the field it marks and the one it is compared with.
+    type Voltage = 'supplyMinV' | 'supplyMaxV' | 'lockoutV' | 'ratedSupplyV'
+    const fail = (field: Voltage, relation: string, other: Voltage) =>
+      context.addIssue({
+        code: 'custom',
+        path: [field],
+        message: `${fieldLabel(`amplifier.${field}`)} must ${relation} the ${inSentence(`amplifier.${other}`)}`,
+      })
     if (supplyMinV !== undefined && supplyMaxV !== undefined && supplyMinV > supplyMaxV) {
-      fail('supplyMinV', 'Minimum supply voltage must not be above the maximum supply voltage')
+      fail('supplyMinV', 'not be above', 'supplyMaxV')
     }
     if (lockoutV !== undefined && supplyMaxV !== undefined && lockoutV >= supplyMaxV) {
-      fail('lockoutV', 'Lock-out voltage must be below the maximum supply voltage')
+      fail('lockoutV', 'be below', 'supplyMaxV')
     }
     if (lockoutV !== undefined && lockoutV >= ratedSupplyV) {
-      fail('lockoutV', 'Lock-out voltage must be below the rated supply voltage')
+      fail('lockoutV', 'be below', 'ratedSupplyV')
     }
     if (supplyMaxV !== undefined && ratedSupplyV > supplyMaxV) {
-      fail('ratedSupplyV', 'Rated supply voltage must not be above the maximum supply voltage')
+      fail('ratedSupplyV', 'not be above', 'supplyMaxV')
     }
     if (supplyMinV !== undefined && ratedSupplyV < supplyMinV) {
-      fail('ratedSupplyV', 'Rated supply voltage must not be below the minimum supply voltage')
+      fail('ratedSupplyV', 'not be below', 'supplyMinV')
     }
   })
 
@@ -192,7 +199,7 @@ export const accessorySchema = z
       powerW: numberField('accessory.powerW'),
       inputMinV: numberField('accessory.inputMinV'),
       inputMaxV: numberField('accessory.inputMaxV'),
-      feed: choice('Accessory feed', ACCESSORY_FEEDS),
+      feed: choice(CHOICES['accessory.feed'].label, ACCESSORY_FEEDS),
       outputV: numberField('accessory.outputV').optional(),
       efficiency: numberField('accessory.efficiency').optional(),
       idleW: numberField('accessory.idleW').optional(),
@@ -211,14 +218,14 @@ export const accessorySchema = z
       context.addIssue({
         code: 'custom',
         path: ['converterInputMinV'],
-        message: `Accessory "${accessory.label}": the converter's minimum input voltage must not be above its maximum`,
+        message: `Accessory "${accessory.label}": ${inSentence('accessory.converterInputMinV')} must not be above the ${inSentence('accessory.converterInputMaxV')}`,
       })
     }
     if (accessory.inputMinV > accessory.inputMaxV) {
       context.addIssue({
         code: 'custom',
         path: ['inputMinV'],
-        message: `Accessory "${accessory.label}": minimum input voltage must not be above its maximum`,
+        message: `Accessory "${accessory.label}": ${inSentence('accessory.inputMinV')} must not be above the ${inSentence('accessory.inputMaxV')}`,
       })
     } else if (
       accessory.outputV !== undefined &&
@@ -227,7 +234,7 @@ export const accessorySchema = z
       context.addIssue({
         code: 'custom',
         path: ['outputV'],
-        message: `Accessory "${accessory.label}": converter output voltage must lie within the accessory's input range (${accessory.inputMinV}–${accessory.inputMaxV} V)`,
+        message: `Accessory "${accessory.label}": ${inSentence('accessory.outputV')} must lie within the accessory's input range (${accessory.inputMinV}–${accessory.inputMaxV} V)`,
       })
     }
   })
@@ -259,7 +266,7 @@ export const scheduleSegmentSchema = z
       context.addIssue({
         code: 'custom',
         path: ['chargeW'],
-        message: `Segment "${segment.label}" is a charging break: give the charging power into the pack in W`,
+        message: `Segment "${segment.label}" is a charging break: give the ${inSentence('segment.chargeW')} in ${FIELDS['segment.chargeW'].unit}`,
       })
     }
   })
@@ -298,7 +305,7 @@ export const estimateRequestSchema = z
       temperatureC: numberField('temperatureC').optional(),
       listenerDistanceM: numberField('listenerDistanceM').optional(),
       boundaryGainDb: numberField('boundaryGainDb').optional(),
-      childrenPresent: flag('Children present').optional(),
+      childrenPresent: flag(FLAGS.childrenPresent.label).optional(),
       swapPolicy: swapPolicySchema.optional(),
     },
     { error: 'The estimate request must be a JSON object' },
@@ -311,7 +318,7 @@ export const estimateRequestSchema = z
       context.addIssue({
         code: 'custom',
         path: ['speakers', 'facingListener'],
-        message: `Drivers facing the listener (${speakers.facingListener}) cannot be more than the rig's ${totalDrivers} drivers (all channels)`,
+        message: `${fieldLabel('speakers.facingListener')} (${speakers.facingListener}) cannot be more than the rig's ${totalDrivers} drivers (all channels)`,
       })
     }
   })

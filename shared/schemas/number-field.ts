@@ -14,6 +14,17 @@ export function boundsMessage(entry: NumberFieldEntry): string {
   return `${entry.label} must be ${range}${unit}${note}`
 }
 
+/** A field's label as a message begins with it: the catalogue's own. */
+export function fieldLabel(key: FieldKey): string {
+  return FIELDS[key].label
+}
+
+/** A field's label inside a sentence: lower case but for a leading abbreviation ("THD"). */
+export function fieldLabelInSentence(key: FieldKey): string {
+  const label = fieldLabel(key)
+  return /^\p{Lu}\p{Lu}/u.test(label) ? label : label.charAt(0).toLowerCase() + label.slice(1)
+}
+
 /** A finite number within the field's bounds; zod 4 numbers already refuse NaN and ±Infinity. */
 export function numberField(key: FieldKey) {
   const entry: NumberFieldEntry = FIELDS[key]

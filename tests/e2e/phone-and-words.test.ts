@@ -121,7 +121,7 @@ describe('the bench on a phone and at a desk', () => {
     // No field paths (a dot between two words) and no document names.
     expect(text).not.toMatch(/\b[a-z]+[A-Z]?\w*\.\w+/)
     expect(text).not.toMatch(/\.md\b|§/)
-    expect(text).toContain('Connectors and fuse')
+    expect(text).toContain('Connector and fuse resistance')
     expect(text).toContain('our default')
     expect(await page.getByTestId('power-budget').innerText()).toContain('output power')
     expect(await page.locator('input[placeholder="Please Input"]').count()).toBe(0)

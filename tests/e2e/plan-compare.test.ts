@@ -92,7 +92,7 @@ describe('comparing packs on a plan', () => {
     const chemistries = await table.locator('td[data-col-key="chemistry"]').allTextContents()
     expect(chemistries.length).toBeGreaterThan(0)
     for (const name of chemistries) {
-      expect(['Lithium-ion', 'LiFePO4', 'Lead-acid (AGM/gel)', 'NiMH']).toContain(name)
+      expect(['Li-ion (NMC/NCA)', 'LiFePO4', 'Lead-acid (AGM/gel)', 'NiMH']).toContain(name)
     }
     expect(await brokenHeaderWords(page)).toEqual([])
     await page.getByTestId('plan-compare').screenshot({

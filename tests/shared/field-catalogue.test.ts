@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest'
 import type { z } from 'zod'
-import { FIELDS, type FieldKey, type NumberFieldEntry } from '../../shared/fields'
+import { CHOICES, FIELDS, FLAGS, type FieldKey, type NumberFieldEntry } from '../../shared/fields'
 import {
   accessorySchema,
   amplifierSchema,
@@ -76,6 +76,15 @@ describe('the field catalogue', () => {
     expect(new Set(labels).size).toBe(labels.length)
   })
 
+  it.each(entries)('names %s in words, never by a path or a code name', (key, entry) => {
+    // The label is shown on screen and in messages ("What the estimate assumed" too): a path
+    // such as `pack.cutoffCellV` or `accessories.0.idleW` means nothing to the crew.
+    for (const text of [entry.label, entry.help ?? '']) {
+      expect(text).not.toMatch(/\b[A-Za-z]+\.(\d+|[A-Za-z]+)\b/)
+      expect(text).not.toMatch(/\b[a-z]+[A-Z][a-z]+/)
+    }
+  })
+
   it('says the whole range and unit in one sentence', () => {
     expect(messagesFor('pack.seriesCells', 0)).toEqual([
       'Cells in series must be a whole number from 1 to 100',
@@ -92,6 +101,41 @@ describe('the field catalogue', () => {
     ])
   })
 
+  it('names both fields of a cross-field message by their labels', () => {
+    // Wiring checks: a message that compares two fields reads both names from the catalogue.
+    const amplifier = {
+      class: 'd',
+      bridged: false,
+      channels: 1,
+      ratedPowerW: 20,
+      ratedLoadOhm: 4,
+      ratedSupplyV: 12,
+      supplyMaxV: 14,
+      lockoutV: 15,
+    }
+    const issues = amplifierSchema.safeParse(amplifier).error?.issues ?? []
+    expect(issues.map((issue) => issue.message)).toContain(
+      `${FIELDS['amplifier.lockoutV'].label} must be below the maximum supply voltage`,
+    )
+    const mixer = {
+      label: 'Mixer',
+      powerW: 5,
+      inputMinV: 15,
+      inputMaxV: 9,
+      feed: 'isolated',
+      converterInputMinV: 30,
+      converterInputMaxV: 10,
+    }
+    expect(accessorySchema.safeParse(mixer).error?.issues.map((issue) => issue.message)).toEqual([
+      'Accessory "Mixer": converter minimum input voltage must not be above the converter maximum input voltage',
+      'Accessory "Mixer": accessory minimum input voltage must not be above the accessory maximum input voltage',
+    ])
+    const charging = { label: 'Lunch', minutes: 60, state: 'charging' }
+    expect(scheduleSegmentSchema.safeParse(charging).error?.issues[0]?.message).toBe(
+      'Segment "Lunch" is a charging break: give the charging power into the pack in W',
+    )
+  })
+
   it('keeps the physical bounds', () => {
     // Source: conservation of energy: no amplifier or converter gives out more than it takes in.
     expect(FIELDS['amplifier.efficiency'].max).toBe(1)
@@ -105,6 +149,41 @@ describe('the field catalogue', () => {
     // Source: an ideal conductor and a cell without resistance do not exist: zero is refused.
     expect(FIELDS['pack.cellResistanceOhm'].aboveMin).toBe(true)
     expect(FIELDS['leads.areaMm2'].aboveMin).toBe(true)
+  })
+})
+
+describe('the choice fields of the catalogue', () => {
+  const choices = [
+    ['pack.chemistry', packSchema.shape.chemistry],
+    ['amplifier.class', amplifierSchema.shape.class],
+    ['accessory.feed', accessorySchema.shape.feed],
+  ] as const
+
+  it.each(choices)(
+    'lists every code %s takes, in words, named as its message names it',
+    (key, schema) => {
+      // A wiring check: the schema's codes and the catalogue's options are the same list.
+      const entry = CHOICES[key]
+      expect(Object.keys(entry.options)).toEqual(schema.options)
+      const refused = schema.safeParse('none of these').error?.issues[0]?.message ?? ''
+      expect(refused.startsWith(`${entry.label} must be one of: `)).toBe(true)
+      for (const [code, words] of Object.entries(entry.options)) {
+        // Words, not the code: a code such as "buck-boost" or "lifepo4" is the API's, not the crew's.
+        expect(words).not.toBe(code)
+        expect(words).toMatch(/^\p{Lu}/u)
+      }
+    },
+  )
+
+  it('names each yes-or-no field in its message as the forms do', () => {
+    // A wiring check: the schema's message reads the flag's label from the catalogue.
+    expect(amplifierSchema.shape.bridged.safeParse('yes').error?.issues[0]?.message).toBe(
+      `${FLAGS['amplifier.bridged'].label} must be true or false`,
+    )
+    const children = estimateRequestSchema.shape.childrenPresent.safeParse('yes')
+    expect(children.error?.issues[0]?.message).toBe(
+      `${FLAGS.childrenPresent.label} must be true or false`,
+    )
   })
 })
 

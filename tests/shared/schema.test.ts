@@ -96,7 +96,7 @@ describe('estimate request schema', () => {
   it('rejects a lock-out above the maximum supply and a minimum above the maximum', () => {
     const lockout = issuesFor((request) => (amplifier(request).lockoutV = 30))
     expect(lockout.map((issue) => issue.path.join('.'))).toContain('amplifier.lockoutV')
-    expect(lockout[0]?.message).toMatch(/Lock-out voltage must be below/)
+    expect(lockout[0]?.message).toMatch(/^Lock-out \(undervoltage mute\) voltage must be below/)
     const range = issuesFor((request) => {
       amplifier(request).supplyMinV = 30
       amplifier(request).supplyMaxV = 20
@@ -110,7 +110,9 @@ describe('estimate request schema', () => {
     const both = issuesFor((request) => (request.leads = { awg: 16, areaMm2: 1.5, lengthM: 1 }))
     expect(both[0]?.path).toEqual(['leads', 'awg'])
     const neither = issuesFor((request) => (request.leads = { lengthM: 1 }))
-    expect(neither[0]?.message).toMatch(/AWG or as area in mm²/)
+    expect(neither[0]?.message).toBe(
+      'Give either the lead wire gauge (AWG) or the lead wire area (mm²), exactly one of them',
+    )
     expect(issuesFor((request) => (request.leads = { areaMm2: 1.5, lengthM: 1 }))).toEqual([])
   })
 

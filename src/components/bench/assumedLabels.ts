@@ -1,74 +1,61 @@
-// Plain names and shown values for the defaults the engine lists in `result.assumed`, so the
-// "What the estimate assumed" table never shows a field path or a bare fraction.
+// The rows of "What the estimate assumed": each default the engine lists in `result.assumed`
+// named by its field's label in the catalogue and shown in its unit, so the table never shows a
+// field path or a bare fraction, and names a field as its form and its messages do. The engine
+// writes each default's basis (a published source, common practice, from memory or ours).
+import { FIELDS, fieldEntry, type FieldKey, type NumberFieldEntry } from '@shared/fields'
 import type { AssumedValue, EstimateRequest } from '@shared/schemas/estimate'
 import { formatNumber, withUnit } from '@/display/format'
-import { milliOhm, percentOfOne, showQuantity, type DisplayQuantity } from '@/display/units'
+import { displayQuantity, showQuantity } from '@/display/units'
 
-interface AssumedField {
-  label: string
-  /** How the value is shown; a plain number when absent. */
-  show?: (value: number) => string
+/** An accessory's default is listed by its place in the request: `accessories.2.idleW`. */
+const accessoryPath = /^accessories\.(\d+)\.(\w+)$/
+
+function isFieldKey(key: string): key is FieldKey {
+  return Object.hasOwn(FIELDS, key)
 }
 
-const plain = (decimals: number, unit: string) => (value: number) =>
-  withUnit(formatNumber(value, decimals), unit)
-const inQuantity = (quantity: DisplayQuantity) => (value: number) => showQuantity(value, quantity)
-
-const fields: Record<string, AssumedField> = {
-  'programme.playingPct': { label: 'Share of the time music plays', show: plain(0, '%') },
-  'pack.cellResistanceOhm': { label: 'Internal resistance per cell', show: inQuantity(milliOhm) },
-  'pack.cutoffCellV': { label: 'Cutoff voltage per cell', show: plain(2, 'V') },
-  'pack.healthPct': { label: 'Pack health', show: plain(0, '%') },
-  'pack.peukertExponent': { label: 'Peukert exponent', show: (value) => formatNumber(value, 2) },
-  'pack.count': { label: 'Charged packs on hand', show: (value) => formatNumber(value) },
-  'leads.connectorOhm': { label: 'Connectors and fuse', show: inQuantity(milliOhm) },
-  'amplifier.ratedThdPct': { label: 'Distortion at the rated power', show: plain(1, '%') },
-  'amplifier.lockoutV': { label: 'Amplifier mutes below', show: plain(1, 'V') },
-  'amplifier.idleCurrentA': { label: 'Amplifier idle current', show: plain(2, 'A') },
-  'amplifier.efficiency': { label: 'Amplifier efficiency', show: inQuantity(percentOfOne) },
-  'amplifier.minLoadOhm': { label: 'Lowest load the amplifier takes', show: plain(1, 'Ω') },
-  'speakers.facingListener': {
-    label: 'Drivers facing the listener',
-    show: (value) => formatNumber(value),
-  },
-  boundaryGainDb: { label: 'Gain from nearby surfaces', show: plain(0, 'dB') },
-}
-
-const accessoryFields: Record<string, AssumedField> = {
-  outputV: { label: 'converter output', show: plain(1, 'V') },
-  efficiency: { label: 'converter efficiency', show: inQuantity(percentOfOne) },
-  idleW: { label: 'converter idle draw', show: plain(2, 'W') },
+/** The catalogue entry of an assumed value's field, and the index of its accessory if any. */
+function catalogueEntry(field: string): {
+  entry: NumberFieldEntry | undefined
+  accessoryIndex: number | undefined
+} {
+  const accessory = accessoryPath.exec(field)
+  const key = accessory ? `accessory.${accessory[2] ?? ''}` : field
+  return {
+    entry: isFieldKey(key) ? fieldEntry(key) : undefined,
+    accessoryIndex: accessory ? Number(accessory[1]) : undefined,
+  }
 }
 
 /**
- * The plain label and shown value of one assumed default. Temperatures and distances are shown
- * in the units chosen in the header (`temperature`, `length`).
+ * A worked-out value of a field in the unit its form shows (mΩ, %, °F, ft as the header's switch
+ * says), to the catalogue's decimals; whole numbers without any.
  */
+function shownNumber(value: number, entry: NumberFieldEntry | undefined): string {
+  const quantity = displayQuantity(entry?.display)
+  if (quantity) return showQuantity(value, quantity)
+  const figure = formatNumber(value, entry?.decimals ?? (entry?.whole ? 0 : 2))
+  return entry?.unit ? withUnit(figure, entry.unit) : figure
+}
+
+/** The plain label and shown value of one assumed default. */
 export function assumedRow(
-  entry: AssumedValue,
+  assumed: AssumedValue,
   request: EstimateRequest | null,
-  units: { temperature: DisplayQuantity; length: DisplayQuantity },
 ): { label: string; value: string } {
-  const accessory = /^accessories\.(\d+)\.(\w+)$/.exec(entry.field)
-  const known = accessory
-    ? accessoryFields[accessory[2] ?? '']
-    : entry.field === 'temperatureC'
-      ? { label: 'Temperature', show: inQuantity(units.temperature) }
-      : entry.field === 'listenerDistanceM'
-        ? { label: 'Listener distance', show: inQuantity(units.length) }
-        : fields[entry.field]
-  let label = known?.label ?? 'Other setting'
-  if (accessory) {
-    const name = request?.accessories?.[Number(accessory[1])]?.label ?? 'Accessory'
+  const { entry, accessoryIndex } = catalogueEntry(assumed.field)
+  let label = entry?.label ?? 'Other setting'
+  if (accessoryIndex !== undefined) {
+    const name = request?.accessories?.[accessoryIndex]?.label ?? 'Accessory'
     label = `${name}: ${label}`
   }
   const value =
-    typeof entry.value === 'number'
-      ? (known?.show ?? ((shown: number) => formatNumber(shown, 2)))(entry.value)
-      : typeof entry.value === 'boolean'
-        ? entry.value
+    typeof assumed.value === 'number'
+      ? shownNumber(assumed.value, entry)
+      : typeof assumed.value === 'boolean'
+        ? assumed.value
           ? 'yes'
           : 'no'
-        : entry.value
+        : assumed.value
   return { label, value }
 }

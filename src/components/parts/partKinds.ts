@@ -1,5 +1,13 @@
 import type { z } from 'zod'
-import { fieldEntry, type FieldKey } from '@shared/fields'
+import {
+  choiceEntry,
+  choiceWords,
+  fieldEntry,
+  flagEntry,
+  type ChoiceKey,
+  type FieldKey,
+  type FlagKey,
+} from '@shared/fields'
 import { displayQuantity, showFigure, showQuantity } from '@/display/units'
 import {
   accessoriesApi,
@@ -14,7 +22,6 @@ import {
   libraryPacks,
   librarySpeakers,
 } from '@shared/library'
-import { ACCESSORY_FEEDS, AMPLIFIER_CLASSES, CHEMISTRY_VALUES } from '@shared/schemas/estimate'
 import {
   accessoryBodySchema,
   amplifierBodySchema,
@@ -37,17 +44,15 @@ export interface PartNumberField extends PartFieldBase {
   type: 'number'
   field: FieldKey
 }
-/** One of a list of words (chemistry, class, feed). */
+/** One of a list of codes (chemistry, class, feed): its label, help and words in the catalogue. */
 export interface PartChoiceField extends PartFieldBase {
   type: 'choice'
-  label: string
-  options: readonly string[]
-  /** Shown under the field. */
-  hint?: string
+  choice: ChoiceKey
 }
+/** Yes or no: its label in the catalogue. */
 export interface PartFlagField extends PartFieldBase {
   type: 'flag'
-  label: string
+  flag: FlagKey
 }
 export type PartField = PartNumberField | PartChoiceField | PartFlagField
 
@@ -73,7 +78,10 @@ function number(field: FieldKey, required = false): PartNumberField {
   return { key: field.slice(field.indexOf('.') + 1), type: 'number', field, required }
 }
 
-const chemistryHint = 'Li-ion covers NMC and NCA tool packs; lead-acid covers AGM and gel.'
+/** A choice field of a part, always required: the property is the catalogue key's last part. */
+function choice(field: ChoiceKey): PartChoiceField {
+  return { key: field.slice(field.indexOf('.') + 1), type: 'choice', choice: field, required: true }
+}
 
 export const partKinds: PartKind[] = [
   {
@@ -83,14 +91,7 @@ export const partKinds: PartKind[] = [
     api: packsApi as unknown as PartKind['api'],
     schema: packBodySchema,
     fields: [
-      {
-        key: 'chemistry',
-        label: 'Chemistry',
-        type: 'choice',
-        options: CHEMISTRY_VALUES,
-        hint: chemistryHint,
-        required: true,
-      },
+      choice('pack.chemistry'),
       number('pack.seriesCells', true),
       number('pack.parallelCells', true),
       number('pack.cellCapacityAh', true),
@@ -114,8 +115,8 @@ export const partKinds: PartKind[] = [
     api: amplifiersApi as unknown as PartKind['api'],
     schema: amplifierBodySchema,
     fields: [
-      { key: 'class', label: 'Class', type: 'choice', options: AMPLIFIER_CLASSES, required: true },
-      { key: 'bridged', label: 'Bridged (BTL) output', type: 'flag', required: true },
+      choice('amplifier.class'),
+      { key: 'bridged', type: 'flag', flag: 'amplifier.bridged', required: true },
       number('amplifier.channels', true),
       number('amplifier.ratedPowerW', true),
       number('amplifier.ratedLoadOhm', true),
@@ -160,13 +161,7 @@ export const partKinds: PartKind[] = [
       number('accessory.powerW', true),
       number('accessory.inputMinV', true),
       number('accessory.inputMaxV', true),
-      {
-        key: 'feed',
-        label: 'Fed through',
-        type: 'choice',
-        options: ACCESSORY_FEEDS,
-        required: true,
-      },
+      choice('accessory.feed'),
       number('accessory.outputV'),
       number('accessory.efficiency'),
       number('accessory.idleW'),
@@ -183,9 +178,10 @@ export function fieldOf(kind: PartKind, key: string): PartField | undefined {
   return kind.fields.find((field) => field.key === key)
 }
 
-/** A field's label: the catalogue's for a number. */
+/** A field's label: the catalogue's for a number and a choice. */
 export function labelOf(field: PartField): string {
-  return field.type === 'number' ? fieldEntry(field.field).label : field.label
+  if (field.type === 'number') return fieldEntry(field.field).label
+  return field.type === 'choice' ? choiceEntry(field.choice).label : flagEntry(field.flag).label
 }
 
 /** The unit a field is shown and typed in. */
@@ -199,6 +195,7 @@ export function unitOf(field: PartField | undefined): string | undefined {
 export function shownValue(field: PartField | undefined, value: unknown, withUnit = true): string {
   if (value === undefined || value === null) return '—'
   if (typeof value === 'boolean') return value ? 'yes' : 'no'
+  if (field?.type === 'choice') return choiceWords(field.choice, String(value))
   if (typeof value !== 'number' || field?.type !== 'number') return String(value)
   const entry = fieldEntry(field.field)
   const quantity = displayQuantity(entry.display)
