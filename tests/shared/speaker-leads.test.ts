@@ -65,7 +65,9 @@ describe('speaker leads', () => {
     })
     expect(parsed.success).toBe(false)
     expect(parsed.error?.issues[0]?.path).toEqual(['speakerLeads', 'awg'])
-    expect(parsed.error?.issues[0]?.message).toMatch(/speaker lead's wire size/)
+    expect(parsed.error?.issues[0]?.message).toMatch(
+      /speaker lead wire gauge \(AWG\) or the speaker lead wire area/,
+    )
     const tooLong = estimateRequestSchema.safeParse({
       ...columnRig(),
       speakerLeads: { areaMm2: 1.5, lengthM: 2000 },
