@@ -16,5 +16,11 @@ export const placeFields = {
     max: 1000,
     display: 'length',
   },
-  boundaryGainDb: { label: 'Boundary gain', unit: 'dB', min: 0, max: 12, decimals: 0 },
+  boundaryGainDb: {
+    label: 'Placement (boundary gain)',
+    unit: 'dB',
+    min: 0,
+    max: 12,
+    decimals: 0,
+  },
 } as const satisfies Record<string, NumberFieldEntry>
