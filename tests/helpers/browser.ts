@@ -152,12 +152,13 @@ export async function chooseColourMode(page: Page, mode: 'light' | 'dark'): Prom
 export async function axeAtDeskAndPhone(
   session: BrowserSession,
   name: string,
-  /** More checks of the page at phone size, on the same load. */
-  { onPhone }: { onPhone?: () => Promise<void> } = {},
+  /** More checks of the page at desk and at phone size, on the same load. */
+  { onDesk, onPhone }: { onDesk?: () => Promise<void>; onPhone?: () => Promise<void> } = {},
 ): Promise<{ desktop: AxeViolation[]; phone: AxeViolation[] }> {
   const { page } = session
   await page.setViewportSize(desktopViewport)
   const desktop = await seriousAxeViolations(page)
+  await onDesk?.()
   await session.screenshot(`${name}-desktop`)
   await page.setViewportSize(phoneViewport)
   await page.evaluate(() => window.scrollTo(0, 0))
@@ -166,4 +167,32 @@ export async function axeAtDeskAndPhone(
   await session.screenshot(`${name}-phone`)
   await page.setViewportSize(desktopViewport)
   return { desktop, phone }
+}
+
+/**
+ * Words in the page's tables that the layout splits across two lines ("Rig" / "s", "2026-" /
+ * "06-13"). A break after a hyphen or a slash between words ("Li-" / "ion") counts as a line
+ * break between pieces, not a broken word; a break inside a piece is what the check refuses.
+ */
+export async function wordsBrokenInTables(page: Page): Promise<string[]> {
+  return page.evaluate(() => {
+    const broken: string[] = []
+    for (const table of document.querySelectorAll('table')) {
+      const walker = document.createTreeWalker(table, NodeFilter.SHOW_TEXT)
+      for (let node = walker.nextNode(); node; node = walker.nextNode()) {
+        for (const piece of (node.textContent ?? '').matchAll(/[^\s/-]+[/-]?/g)) {
+          const range = document.createRange()
+          range.setStart(node, piece.index)
+          range.setEnd(node, piece.index + piece[0].length)
+          const lineTops = new Set(
+            [...range.getClientRects()]
+              .filter((rect) => rect.width > 0)
+              .map((rect) => Math.round(rect.top)),
+          )
+          if (lineTops.size > 1) broken.push(piece[0])
+        }
+      }
+    }
+    return broken
+  })
 }
